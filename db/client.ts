@@ -1,0 +1,30 @@
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import { createClient, type Client } from "@libsql/client";
+import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
+import * as schema from "./schema";
+
+export type Database = LibSQLDatabase<typeof schema> & { $client: Client };
+
+/** Milliseconds a writer waits for another process's lock before giving up. */
+const BUSY_TIMEOUT_MS = 10_000;
+
+function localPath(url: string): string | null {
+  if (!url.startsWith("file:")) return null;
+  return url.slice("file:".length).replace(/^\/\/(?=\/)/, "");
+}
+
+/**
+ * Opens the embedded file (creating its folder) or a libSQL server URL with the same client.
+ * File databases get WAL (kept in the file itself) and a busy timeout on every pooled connection.
+ */
+export async function openDatabase(url: string, authToken?: string): Promise<Database> {
+  const file = localPath(url);
+  if (file && file !== ":memory:") mkdirSync(path.dirname(path.resolve(file)), { recursive: true });
+  const client = createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS });
+  if (file) {
+    await client.execute("PRAGMA journal_mode = WAL");
+    await client.execute("PRAGMA foreign_keys = ON");
+  }
+  return drizzle(client, { schema }) as Database;
+}

@@ -1,0 +1,39 @@
+import type { Role } from "@/db/schema";
+
+export type { Role } from "@/db/schema";
+export { roles } from "@/db/schema";
+
+/** The signed-in person as every guard and domain function sees them. */
+export interface SessionUser {
+  id: string;
+  email: string;
+  name: string;
+  role: Role;
+  timeZone: string;
+  initials: string;
+}
+
+/** Who may do what, named once so routes and pages read the same list. */
+export const can = {
+  triage: ["shifter", "coordinator"],
+  planFollowUp: ["shifter", "coordinator"],
+  claimTask: ["observer", "coordinator"],
+  manageRota: ["coordinator", "admin"],
+  manageUsers: ["coordinator", "admin"],
+  manageSites: ["coordinator", "admin"],
+  manageSettings: ["coordinator", "admin"],
+  readDeadLetters: ["coordinator", "admin"],
+  uploadSkymap: ["shifter", "coordinator"],
+  read: ["shifter", "observer", "coordinator", "admin"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export function hasRole(user: Pick<SessionUser, "role">, allowed: readonly Role[]): boolean {
+  return allowed.includes(user.role);
+}
+
+export const roleLabels: Record<Role, string> = {
+  shifter: "Shifter",
+  observer: "Observer",
+  coordinator: "Coordinator",
+  admin: "Administrator",
+};

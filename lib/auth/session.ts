@@ -1,0 +1,47 @@
+import { eq } from "drizzle-orm";
+import { getServerSession } from "next-auth";
+import { headers } from "next/headers";
+import { redirect } from "next/navigation";
+import { getDb } from "@/db";
+import { users } from "@/db/schema";
+import { resolveApiToken } from "./api-tokens";
+import { buildAuthOptions } from "./options";
+import { hasRole, type Role, type SessionUser } from "./roles";
+
+/** Reads the person behind a user id afresh, so a role change or a disabled account applies at once. */
+export async function loadSessionUser(userId: string): Promise<SessionUser | null> {
+  if (!userId) return null;
+  const db = await getDb();
+  const [row] = await db.select().from(users).where(eq(users.id, userId)).limit(1);
+  if (!row || row.disabledAt) return null;
+  return { id: row.id, email: row.email, name: row.name, role: row.role, timeZone: row.timeZone, initials: row.initials };
+}
+
+/** The signed-in person from the session cookie, or null. */
+export async function getSessionUser(): Promise<SessionUser | null> {
+  const session = await getServerSession(buildAuthOptions());
+  return session?.user?.id ? loadSessionUser(session.user.id) : null;
+}
+
+/** A bearer token wins over the cookie, so scripts never act as whoever last signed in on that machine. */
+export async function resolveRequestUser(requestHeaders: Headers): Promise<SessionUser | null> {
+  const authorization = requestHeaders.get("authorization");
+  if (authorization) {
+    const match = /^Bearer\s+(\S+)$/i.exec(authorization);
+    return match?.[1] ? resolveApiToken(match[1]) : null;
+  }
+  // No session cookie: nothing to look up (and no request scope is needed, which keeps handlers testable).
+  if (!/next-auth\.session-token=/.test(requestHeaders.get("cookie") ?? "")) return null;
+  return getSessionUser();
+}
+
+/** Guards a page or server action: sends strangers to /sign-in and the wrong role to /forbidden. */
+export async function requirePageUser(allowed?: readonly Role[]): Promise<SessionUser> {
+  const user = await getSessionUser();
+  if (!user) {
+    const path = (await headers()).get("x-chirpdesk-path") ?? "/";
+    redirect(`/sign-in?callbackUrl=${encodeURIComponent(path)}`);
+  }
+  if (allowed && !hasRole(user, allowed)) redirect("/forbidden");
+  return user;
+}

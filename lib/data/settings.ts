@@ -1,0 +1,52 @@
+import { eq } from "drizzle-orm";
+import { z } from "zod";
+import { getDb } from "@/db";
+import { settings } from "@/db/schema";
+import type { Tx } from "./events";
+
+/**
+ * Coordinator settings, each a zod schema with defaults, so a missing or old row still reads as a whole value.
+ * Areas add their own key here.
+ */
+export const settingSchemas = {
+  physics: z.object({
+    nsMaxMassSolar: z.number().min(1).max(5).default(3.0),
+    gapUpperMassSolar: z.number().min(2).max(10).default(5.0),
+    nsRadiusKm: z.number().min(8).max(16).default(12),
+    sampleCount: z.number().int().min(1000).max(200_000).default(20_000),
+  }),
+  /** minutes from receipt: the acknowledgement deadlines the board and review use */
+  deadlines: z.object({
+    acknowledgeWarnMinutes: z.number().min(0.5).max(240).default(3),
+    acknowledgeAlarmMinutes: z.number().min(0.5).max(240).default(5),
+    decisionMinutes: z.number().min(1).max(24 * 60).default(30),
+    claimMinutes: z.number().min(1).max(24 * 60).default(60),
+    reportMinutes: z.number().min(1).max(7 * 24 * 60).default(12 * 60),
+    pageMinutes: z.number().min(0.1).max(60).default(1),
+    feedLatencyMinutes: z.number().min(0.1).max(60).default(2),
+  }),
+} as const;
+
+export type SettingKey = keyof typeof settingSchemas;
+export type SettingValue<K extends SettingKey> = z.infer<(typeof settingSchemas)[K]>;
+
+export async function getSetting<K extends SettingKey>(key: K, tx?: Tx): Promise<SettingValue<K>> {
+  const db = tx ?? (await getDb());
+  const [row] = await db.select().from(settings).where(eq(settings.key, key)).limit(1);
+  const parsed = settingSchemas[key].safeParse(row?.value ?? {});
+  return (parsed.success ? parsed.data : settingSchemas[key].parse({})) as SettingValue<K>;
+}
+
+export async function putSetting<K extends SettingKey>(
+  key: K,
+  value: SettingValue<K>,
+  actorId: string | null,
+  tx?: Tx,
+): Promise<void> {
+  const db = tx ?? (await getDb());
+  const now = new Date();
+  await db
+    .insert(settings)
+    .values({ key, value, updatedAt: now, updatedById: actorId })
+    .onConflictDoUpdate({ target: settings.key, set: { value, updatedAt: now, updatedById: actorId } });
+}

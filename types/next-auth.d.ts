@@ -1,0 +1,13 @@
+import type { Role } from "@/db/schema";
+
+declare module "next-auth" {
+  interface Session {
+    user?: { id: string; role?: Role; name?: string | null; email?: string | null; image?: string | null };
+  }
+}
+
+declare module "next-auth/jwt" {
+  interface JWT {
+    role?: Role;
+  }
+}
