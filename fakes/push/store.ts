@@ -14,7 +14,7 @@ export interface FakePushSubscription {
 
 export interface StoredPushMessage {
   id: string;
-  /** Increasing from 1 in arrival order; a cursor for `?after=`. */
+  /** Increasing from 1 in arrival order, never reused (not even after a reset); a cursor for `?after=`. */
   seq: number;
   subscriptionId: string;
   endpoint: string;
