@@ -22,6 +22,7 @@ const nextConfig = {
   distDir: process.env.NEXT_DIST_DIR || ".next",
   serverExternalPackages: ["@libsql/client", "libsql", "smtp-server", "mailparser", "web-push", "nodemailer"],
   poweredByHeader: false,
+  devIndicators: false,
   async headers() {
     return [
       {

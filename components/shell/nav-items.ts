@@ -1,0 +1,34 @@
+import type { Role } from "@/db/schema";
+
+export interface NavItem {
+  href: string;
+  label: string;
+  icon: "triage" | "follow-up" | "candidates" | "rota" | "review" | "sites" | "settings" | "users" | "dead-letters" | "mailbox" | "notifications";
+  /** who sees it in the menu; the page guards itself on the server regardless */
+  roles: readonly Role[];
+}
+
+const everyone: readonly Role[] = ["shifter", "observer", "coordinator", "admin"];
+
+export const navItems: NavItem[] = [
+  { href: "/triage", label: "Triage board", icon: "triage", roles: everyone },
+  { href: "/follow-up", label: "Follow-up board", icon: "follow-up", roles: everyone },
+  { href: "/candidates", label: "Candidates", icon: "candidates", roles: everyone },
+  { href: "/rota", label: "Rota", icon: "rota", roles: everyone },
+  { href: "/review", label: "Review", icon: "review", roles: everyone },
+  { href: "/sites", label: "Sites", icon: "sites", roles: everyone },
+  { href: "/notifications", label: "Pages & alerts", icon: "notifications", roles: everyone },
+  { href: "/settings", label: "Settings", icon: "settings", roles: everyone },
+  { href: "/admin/users", label: "People & roles", icon: "users", roles: ["coordinator", "admin"] },
+  { href: "/dead-letters", label: "Rejected feed posts", icon: "dead-letters", roles: ["coordinator", "admin"] },
+];
+
+export const devNavItems: NavItem[] = [{ href: "/dev/mailbox", label: "Dev mailbox", icon: "mailbox", roles: everyone }];
+
+/** Where each role starts after signing in. */
+export const homeFor: Record<Role, string> = {
+  shifter: "/triage",
+  observer: "/follow-up",
+  coordinator: "/triage",
+  admin: "/admin/users",
+};

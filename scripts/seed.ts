@@ -1,0 +1,30 @@
+import { closeDb, getDb } from "@/db";
+import { migrateDatabase } from "@/db/migrate";
+import { seedDemo } from "@/lib/seed/demo";
+import { seedPastCandidates } from "@/lib/seed/candidates";
+import { demoPeople } from "@/lib/seed/scenario";
+import { loadEnvFile } from "./ensure-env";
+
+/** Migrates, then seeds the demo scenario when the database is empty. Refuses in production unless SEED_DEMO=1. */
+export async function runSeed(): Promise<void> {
+  if (process.env.NODE_ENV === "production" && process.env.SEED_DEMO !== "1") {
+    console.log("production mode: no demo data (set SEED_DEMO=1 to seed an empty database)");
+    return;
+  }
+  const db = await getDb();
+  await migrateDatabase(db);
+  const result = await seedDemo(db, { seedCandidates: seedPastCandidates });
+  console.log(result.seeded ? `demo scenario seeded (${result.candidates} past candidates)` : "database already has users; demo seed skipped");
+}
+
+export function printDemoSignIns(url: string): void {
+  console.log(`\n  Chirpdesk is starting on ${url}\n\n  Demo sign-ins (development only):`);
+  for (const p of demoPeople) console.log(`    ${p.role.padEnd(12)} ${p.email.padEnd(24)} ${p.password}`);
+  console.log("");
+}
+
+if (process.argv[1]?.endsWith("seed.ts")) {
+  loadEnvFile();
+  await runSeed();
+  await closeDb();
+}
