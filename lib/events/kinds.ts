@@ -1,0 +1,27 @@
+/**
+ * Every kind of entry in the append-only event log (`events` table), in one place, so the live stream,
+ * the audit views and the response-time review all read the same names.
+ * `fromState`/`toState` columns carry state changes; `data` stays small (ids, numbers, short strings).
+ */
+export const eventKinds = {
+  candidateCreated: "candidate.created", // data: { revision, stage }
+  candidateRevised: "candidate.revised", // data: { revision, stage, previousRevision }
+  candidateRevisionStale: "candidate.revision-stale", // data: { revision, current }
+  candidateWithdrawn: "candidate.withdrawn", // data: { revision }
+  candidateTriaged: "candidate.triaged", // from/to triage state; data: { reason?, via: "board" | "menu" | "email" | "push" | "api" }
+  candidateAssigned: "candidate.assigned", // data: { ownerId, previousOwnerId }
+  candidateNoteAdded: "candidate.note-added", // data: { noteId }
+  taskCreated: "task.created", // data: { kind, siteId }
+  taskStateChanged: "task.state-changed", // from/to task state; data: { claimedById? }
+  taskCancelled: "task.cancelled", // from/to; data: { reason }
+  taskReported: "task.reported", // data: { reportId }
+  pageQueued: "page.queued", // data: { userIds, channels, reason: "new-candidate" | "escalation" | … }
+  escalationFired: "escalation.fired", // data: { step, target }
+  notificationFailed: "notification.failed", // data: { notificationId, channel, userId }
+  skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
+  shiftChanged: "shift.changed", // data: { shiftId, action: "created" | "updated" | "deleted" }
+  settingsChanged: "settings.changed", // data: { key }
+  userChanged: "user.changed", // data: { userId, action }
+} as const;
+
+export type EventKind = (typeof eventKinds)[keyof typeof eventKinds];
