@@ -1,0 +1,60 @@
+import { credibleArea } from "./credible";
+import { SkymapError } from "./errors";
+import type { ReadFitsOptions } from "./fits";
+import { pix2vec_nest, pix2vec_ring, pixelAreaSr, SR_TO_DEG2, vecToRaDec } from "./healpix";
+import { loadSkymap } from "./load";
+import type { SkymapMap, SkymapSummary, SkyPosition } from "./types";
+
+export type AnalyseResult =
+  | { ok: true; summary: SkymapSummary; map: SkymapMap }
+  | { ok: false; error: SkymapError };
+
+/**
+ * Reads, validates and summarises a HEALPix sky map (FITS, optionally gzip'd): total probability,
+ * 50 % / 90 % greedy credible areas and the position of highest density. Bad input comes back as
+ * `{ ok: false, error }`; the returned map answers coneProbability and toDisplayGrid.
+ */
+export function analyseSkymap(bytes: Uint8Array, options: ReadFitsOptions = {}): AnalyseResult {
+  try {
+    const { map, totalProbability, normalised, warnings } = loadSkymap(bytes, options);
+    const summary: SkymapSummary = {
+      totalProbability,
+      normalised,
+      warnings,
+      area50Deg2: credibleAreaDeg2(map, 0.5),
+      area90Deg2: credibleAreaDeg2(map, 0.9),
+      peak: peakPosition(map),
+      layout: map.layout,
+      ...(map.layout === "multiorder" ? { maxOrder: map.maxOrder } : { nside: map.nside }),
+      pixelCount: map.probability.length,
+    };
+    return { ok: true, summary, map };
+  } catch (error) {
+    if (error instanceof SkymapError) return { ok: false, error };
+    throw error;
+  }
+}
+
+/** Area of the greedy credible region at `level` (e.g. 0.9), in square degrees. */
+export function credibleAreaDeg2(map: SkymapMap, level: number): number {
+  if (map.layout === "multiorder") {
+    const area = new Float64Array(map.order.length);
+    for (let i = 0; i < area.length; i++) area[i] = pixelAreaSr(map.order[i] ?? 0);
+    return credibleArea(map.densityPerSr, map.probability, area, level) * SR_TO_DEG2;
+  }
+  // equal-area pixels: probability ranks them as density would
+  return credibleArea(map.probability, map.probability, pixelAreaSr(map.order), level) * SR_TO_DEG2;
+}
+
+/** Centre of the highest-density pixel (the first one on ties). */
+export function peakPosition(map: SkymapMap): SkyPosition {
+  const ranked = map.layout === "multiorder" ? map.densityPerSr : map.probability;
+  let best = 0;
+  for (let i = 1; i < ranked.length; i++) if ((ranked[i] ?? 0) > (ranked[best] ?? 0)) best = i;
+  if (map.layout === "multiorder") {
+    const c = map.centres;
+    return vecToRaDec([c[3 * best] ?? 0, c[3 * best + 1] ?? 0, c[3 * best + 2] ?? 1]);
+  }
+  const vec = map.layout === "flat-ring" ? pix2vec_ring(map.nside, best) : pix2vec_nest(map.nside, best);
+  return vecToRaDec(vec);
+}

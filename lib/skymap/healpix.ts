@@ -1,0 +1,143 @@
+/**
+ * HEALPix index arithmetic (Górski et al. 2005, ApJ 622, 759). The @hscmap/healpix package supplies
+ * the pixel geometry (fxy2tu / tu2za, query_disc, pix2vec); written here are only what it lacks or
+ * does too slowly for millions of pixels: an allocation-free RING→NESTED index, NUNIQ decoding
+ * (its own uniq helpers use a different packing), and pixel centres up to order 24.
+ */
+import { fxy2tu, nest2ring, pix2vec_nest, pix2vec_ring, query_disc_inclusive_nest, tu2za } from "@hscmap/healpix";
+import type { V3 } from "@hscmap/healpix";
+
+export { nest2ring, pix2vec_nest, pix2vec_ring, query_disc_inclusive_nest, type V3 };
+
+/** Finest order accepted: NUNIQ values stay below 2^53 (exact doubles) up to here. */
+export const MAX_ORDER = 24;
+const TWO_32 = 4294967296;
+
+export function nside2npix(nside: number): number {
+  return 12 * nside * nside;
+}
+
+/** log2(nside) when nside is a power of two in 1 … 2^MAX_ORDER, else undefined. */
+export function nsideToOrder(nside: number): number | undefined {
+  if (!Number.isInteger(nside) || nside < 1 || nside > 2 ** MAX_ORDER) return undefined;
+  const order = Math.round(Math.log2(nside));
+  return 2 ** order === nside ? order : undefined;
+}
+
+/** Pixel solid angle at an order: 4π / (12 · 4^order) sr (Górski et al. 2005, §4). */
+export function pixelAreaSr(order: number): number {
+  return Math.PI / (3 * 4 ** order);
+}
+
+export const SR_TO_DEG2 = (180 / Math.PI) ** 2;
+
+/** Unit vector of an equatorial position (theta = 90° − dec, phi = ra). */
+export function raDecToVec(raDeg: number, decDeg: number): V3 {
+  const ra = (raDeg * Math.PI) / 180;
+  const dec = (decDeg * Math.PI) / 180;
+  return [Math.cos(dec) * Math.cos(ra), Math.cos(dec) * Math.sin(ra), Math.sin(dec)];
+}
+
+export function vecToRaDec(v: V3): { raDeg: number; decDeg: number } {
+  const [x, y, z] = v;
+  const raDeg = ((Math.atan2(y, x) * 180) / Math.PI + 360) % 360;
+  const decDeg = (Math.atan2(z, Math.hypot(x, y)) * 180) / Math.PI;
+  return { raDeg, decDeg };
+}
+
+/**
+ * NUNIQ scheme: uniq = 4 · 4^order + ipix (HEALPix primer; Górski et al. 2005), so
+ * order = ⌊log2(uniq / 4) / 2⌋. Returns undefined for values that are not a valid uniq ≤ MAX_ORDER.
+ */
+export function decodeUniq(uniq: number): { order: number; ipix: number } | undefined {
+  if (!Number.isSafeInteger(uniq) || uniq < 4) return undefined;
+  let order = Math.floor(Math.log2(uniq / 4) / 2);
+  // guard the float log against rounding at the boundaries
+  while (order > 0 && 4 * 4 ** order > uniq) order--;
+  while (4 * 4 ** (order + 1) <= uniq) order++;
+  if (order > MAX_ORDER) return undefined;
+  return { order, ipix: uniq - 4 * 4 ** order };
+}
+
+function spreadBits16(v: number): number {
+  v &= 0xffff;
+  v = (v | (v << 8)) & 0x00ff00ff;
+  v = (v | (v << 4)) & 0x0f0f0f0f;
+  v = (v | (v << 2)) & 0x33333333;
+  return (v | (v << 1)) & 0x55555555;
+}
+
+function compactBits32(v: number): number {
+  v &= 0x55555555;
+  v = (v | (v >>> 1)) & 0x33333333;
+  v = (v | (v >>> 2)) & 0x0f0f0f0f;
+  v = (v | (v >>> 4)) & 0x00ff00ff;
+  return (v | (v >>> 8)) & 0x0000ffff;
+}
+
+const JPLL = [1, 3, 5, 7, 0, 2, 4, 6, 1, 3, 5, 7];
+
+/**
+ * RING → NESTED index for nside ≤ 2^15 without allocating (ring2xyf of Górski et al. 2005, §4,
+ * followed by bit interleaving), so whole maps can be reordered quickly.
+ */
+export function ringToNest(nside: number, pix: number): number {
+  const ncap = 2 * nside * (nside - 1);
+  const npix = 12 * nside * nside;
+  const nl2 = 2 * nside;
+  let iring: number, iphi: number, kshift: number, nr: number, face: number;
+  if (pix < ncap) {
+    iring = (1 + isqrt(1 + 2 * pix)) >> 1;
+    iphi = pix + 1 - 2 * iring * (iring - 1);
+    kshift = 0;
+    nr = iring;
+    face = Math.floor((iphi - 1) / nr);
+  } else if (pix < npix - ncap) {
+    const ip = pix - ncap;
+    const tmp = Math.floor(ip / (4 * nside));
+    iring = tmp + nside;
+    iphi = ip - tmp * 4 * nside + 1;
+    kshift = (iring + nside) & 1;
+    nr = nside;
+    const ifm = Math.floor((iphi - ((tmp + 1) >> 1) + nside - 1) / nside);
+    const ifp = Math.floor((iphi - ((nl2 + 1 - tmp) >> 1) + nside - 1) / nside);
+    face = ifp === ifm ? ifp | 4 : ifp < ifm ? ifp : ifm + 8;
+  } else {
+    const ip = npix - pix;
+    const ringFromSouth = (1 + isqrt(2 * ip - 1)) >> 1;
+    iphi = 4 * ringFromSouth + 1 - (ip - 2 * ringFromSouth * (ringFromSouth - 1));
+    kshift = 0;
+    nr = ringFromSouth;
+    iring = 2 * nl2 - ringFromSouth;
+    face = Math.floor((iphi - 1) / nr) + 8;
+  }
+  const irt = iring - (2 + (face >> 2)) * nside + 1;
+  let ipt = 2 * iphi - (JPLL[face] ?? 0) * nr - kshift - 1;
+  if (ipt >= nl2) ipt -= 8 * nside;
+  const x = (ipt - irt) >> 1;
+  const y = (-ipt - irt) >> 1;
+  return face * nside * nside + spreadBits16(x) + 2 * spreadBits16(y);
+}
+
+function isqrt(v: number): number {
+  let r = Math.floor(Math.sqrt(v));
+  while (r * r > v) r--;
+  while ((r + 1) * (r + 1) <= v) r++;
+  return r;
+}
+
+/** Centre of a NESTED pixel of any order ≤ MAX_ORDER as a unit vector (geometry from @hscmap/healpix). */
+export function nestCentreVec(order: number, ipix: number): V3 {
+  const nside = 2 ** order;
+  const perFace = nside * nside;
+  const face = Math.floor(ipix / perFace);
+  const k = ipix - face * perFace;
+  const lo = k % TWO_32;
+  const hi = Math.floor(k / TWO_32);
+  const x = compactBits32(lo) + compactBits32(hi) * 65536;
+  const y = compactBits32(lo >>> 1) + compactBits32(hi >>> 1) * 65536;
+  const { t, u } = fxy2tu(nside, face, x, y);
+  const { z, a } = tu2za(t, u);
+  const s = Math.sqrt(1 - z * z);
+  return [s * Math.cos(a), s * Math.sin(a), z];
+}

@@ -1,0 +1,17 @@
+/** Public surface of the sky-map library: pure functions over bytes and typed arrays. */
+export { analyseSkymap, credibleAreaDeg2, peakPosition, type AnalyseResult } from "./analyse";
+export { coneProbability } from "./cone";
+export {
+  decodeDisplayGrid,
+  degradeDisplayGrid,
+  displayGridToMap,
+  encodeDisplayGrid,
+  MAX_DISPLAY_NSIDE,
+  toDisplayGrid,
+  type DisplayGrid,
+} from "./display-grid";
+export { SkymapError, type SkymapErrorCode } from "./errors";
+export { DEFAULT_MAX_FITS_BYTES } from "./fits";
+export { loadSkymap, type LoadedSkymap } from "./load";
+export { credibleRegionPoints, type RegionPointsOptions } from "./region";
+export type * from "./types";

@@ -1,0 +1,81 @@
+import { SkymapError } from "./errors";
+import { decodeUniq, nestCentreVec, pixelAreaSr } from "./healpix";
+import { normalise } from "./validate";
+import type { MultiOrderSkymap } from "./types";
+
+/**
+ * Builds a multi-order map from UNIQ values and either densities (per sr) or per-pixel probabilities.
+ * Checks every UNIQ, that no two pixels overlap, and warns when the pixels do not cover the sky.
+ */
+export function buildMultiOrder(
+  uniq: Float64Array,
+  values: Float64Array,
+  kind: "density" | "probability",
+  warnings: string[],
+): { map: MultiOrderSkymap; totalProbability: number; normalised: boolean } {
+  const count = uniq.length;
+  if (count === 0) throw new SkymapError("bad-uniq", "multi-order map has no pixels");
+  const order = new Uint8Array(count);
+  const ipix = new Float64Array(count);
+  let maxOrder = 0;
+  for (let i = 0; i < count; i++) {
+    const decoded = decodeUniq(uniq[i] ?? -1);
+    if (!decoded) {
+      throw new SkymapError(
+        "bad-uniq",
+        `UNIQ value ${uniq[i]} in row ${i + 1} is not a NUNIQ index (4·4^order + ipix, order ≤ 24)`,
+      );
+    }
+    order[i] = decoded.order;
+    ipix[i] = decoded.ipix;
+    if (decoded.order > maxOrder) maxOrder = decoded.order;
+  }
+  checkDisjoint(order, ipix, maxOrder, warnings);
+
+  const probability = new Float64Array(count);
+  const densityPerSr = new Float64Array(count);
+  for (let i = 0; i < count; i++) {
+    const area = pixelAreaSr(order[i] ?? 0);
+    const v = values[i] ?? 0;
+    probability[i] = kind === "density" ? v * area : v;
+    densityPerSr[i] = kind === "density" ? v : v / area;
+  }
+  const { total, normalised } = normalise(probability, warnings, densityPerSr);
+
+  const centres = new Float64Array(3 * count);
+  for (let i = 0; i < count; i++) {
+    const [x, y, z] = nestCentreVec(order[i] ?? 0, ipix[i] ?? 0);
+    centres[3 * i] = x;
+    centres[3 * i + 1] = y;
+    centres[3 * i + 2] = z;
+  }
+  const map: MultiOrderSkymap = { layout: "multiorder", maxOrder, order, ipix, probability, densityPerSr, centres };
+  return { map, totalProbability: total, normalised };
+}
+
+/**
+ * Each pixel is the index range [ipix·4^(M−o), (ipix+1)·4^(M−o)) at the finest order M. Sorting starts
+ * and ends separately, the ranges are disjoint iff start(i+1) ≥ end(i) for every i.
+ */
+function checkDisjoint(order: Uint8Array, ipix: Float64Array, maxOrder: number, warnings: string[]): void {
+  const count = order.length;
+  const starts = new Float64Array(count);
+  const ends = new Float64Array(count);
+  let covered = 0;
+  for (let i = 0; i < count; i++) {
+    const span = 4 ** (maxOrder - (order[i] ?? 0));
+    const start = (ipix[i] ?? 0) * span;
+    starts[i] = start;
+    ends[i] = start + span;
+    covered += span;
+  }
+  starts.sort();
+  ends.sort();
+  for (let i = 0; i + 1 < count; i++) {
+    if ((starts[i + 1] ?? 0) < (ends[i] ?? 0)) {
+      throw new SkymapError("bad-uniq", "multi-order pixels overlap (a UNIQ repeats or nests inside another)");
+    }
+  }
+  const fraction = covered / (12 * 4 ** maxOrder);
+  if (fraction < 1 - 1e-12) warnings.push(`multi-order pixels cover only ${(100 * fraction).toFixed(2)} % of the sky`);
+}
