@@ -1,0 +1,201 @@
+import { asc, eq, inArray } from "drizzle-orm";
+import { getDb } from "@/db";
+import {
+  candidateRevisions,
+  candidates,
+  derivedQuantities,
+  followUpTasks,
+  sites,
+  users,
+  type SourceClass,
+  type Stage,
+  type TaskKind,
+  type TaskState,
+  type TriageState,
+} from "@/db/schema";
+import { diffHeadlines, headlineFromDerived, type HeadlineChange, type RevisionHeadline } from "@/lib/feed/headline";
+
+export interface PersonRef {
+  id: string;
+  name: string;
+  initials: string;
+}
+
+export interface CandidateRevisionSummary {
+  revision: number;
+  stage: Stage;
+  eventTime: Date;
+  receivedAt: Date;
+  isCurrent: boolean;
+  /** a higher revision had already arrived when this one did */
+  arrivedLate: boolean;
+  headline: RevisionHeadline;
+  /** what changed since the next lower revision (empty for the first) */
+  changes: HeadlineChange[];
+}
+
+export interface CandidateTaskSummary {
+  id: string;
+  kind: TaskKind;
+  state: TaskState;
+  priority: number;
+  site: { id: string; code: string; name: string } | null;
+  claimedBy: PersonRef | null;
+  windowStart: Date | null;
+  windowEnd: Date | null;
+  createdAt: Date;
+  claimedAt: Date | null;
+  reportedAt: Date | null;
+  cancelledAt: Date | null;
+}
+
+export interface CandidateDetail {
+  id: string;
+  /** the current revision number */
+  revision: number;
+  /** the current revision's derived quantities, as the ingest route answered them */
+  derived: Record<string, unknown>;
+  source: string;
+  externalId: string;
+  state: {
+    triageState: TriageState;
+    stage: Stage;
+    owner: PersonRef | null;
+    acknowledgedAt: Date | null;
+    acknowledgedBy: PersonRef | null;
+    decidedAt: Date | null;
+    dismissReason: string | null;
+    withdrawnAt: Date | null;
+    eventTime: Date;
+    receivedAt: Date;
+    updatedAt: Date;
+    version: number;
+  };
+  headline: {
+    networkSnr: number;
+    falseAlarmRatePerYear: number;
+    detectors: string[];
+    chirpMassDetectorFrame: number | null;
+    dominantClass: SourceClass | null;
+  };
+  revisions: CandidateRevisionSummary[];
+  tasks: CandidateTaskSummary[];
+  /** the current revision's feed body as received (validated) */
+  payload: Record<string, unknown>;
+}
+
+function payloadNumber(payload: Record<string, unknown>, key: string): number {
+  const value = payload[key];
+  return typeof value === "number" ? value : Number.NaN;
+}
+
+/** One candidate with state, every revision (and what changed), tasks and the current payload; null if unknown. */
+export async function getCandidateDetail(id: string): Promise<CandidateDetail | null> {
+  const db = await getDb();
+  const [candidate] = await db.select().from(candidates).where(eq(candidates.id, id)).limit(1);
+  if (!candidate) return null;
+  const [revisionRows, taskRows] = await Promise.all([
+    db
+      .select({ revision: candidateRevisions, derived: derivedQuantities.derived })
+      .from(candidateRevisions)
+      .leftJoin(derivedQuantities, eq(derivedQuantities.revisionId, candidateRevisions.id))
+      .where(eq(candidateRevisions.candidateId, id))
+      .orderBy(asc(candidateRevisions.revision)),
+    db
+      .select({ task: followUpTasks, site: { id: sites.id, code: sites.code, name: sites.name } })
+      .from(followUpTasks)
+      .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
+      .where(eq(followUpTasks.candidateId, id))
+      .orderBy(asc(followUpTasks.createdAt)),
+  ]);
+  const people = await loadPeople([
+    candidate.ownerId,
+    candidate.acknowledgedById,
+    ...taskRows.map((row) => row.task.claimedById),
+  ]);
+  const person = (userId: string | null) => (userId ? (people.get(userId) ?? null) : null);
+
+  const revisions: CandidateRevisionSummary[] = [];
+  let previous: RevisionHeadline | null = null;
+  for (const [index, { revision, derived }] of revisionRows.entries()) {
+    const derivedHeadline = headlineFromDerived(derived);
+    const headline: RevisionHeadline = {
+      stage: revision.stage,
+      eventTime: revision.eventTime.toISOString(),
+      networkSnr: payloadNumber(revision.payload, "networkSnr"),
+      falseAlarmRatePerYear: payloadNumber(revision.payload, "falseAlarmRatePerYear"),
+      detectors: Array.isArray(revision.payload.detectors) ? revision.payload.detectors.map(String) : [],
+      chirpMassDetectorFrame: derivedHeadline.chirpMassDetectorFrame,
+      dominantClass: derivedHeadline.dominantClass,
+    };
+    const later = revisionRows.slice(index + 1);
+    revisions.push({
+      revision: revision.revision,
+      stage: revision.stage,
+      eventTime: revision.eventTime,
+      receivedAt: revision.receivedAt,
+      isCurrent: revision.revision === candidate.currentRevision,
+      arrivedLate: later.some((row) => row.revision.receivedAt < revision.receivedAt),
+      headline,
+      changes: previous ? diffHeadlines(previous, headline) : [],
+    });
+    previous = headline;
+  }
+  const current = revisionRows.find((row) => row.revision.revision === candidate.currentRevision);
+
+  return {
+    id: candidate.id,
+    revision: candidate.currentRevision,
+    derived: current?.derived ?? {},
+    source: candidate.source,
+    externalId: candidate.externalId,
+    state: {
+      triageState: candidate.triageState,
+      stage: candidate.stage,
+      owner: person(candidate.ownerId),
+      acknowledgedAt: candidate.acknowledgedAt,
+      acknowledgedBy: person(candidate.acknowledgedById),
+      decidedAt: candidate.decidedAt,
+      dismissReason: candidate.dismissReason,
+      withdrawnAt: candidate.withdrawnAt,
+      eventTime: candidate.eventTime,
+      receivedAt: candidate.receivedAt,
+      updatedAt: candidate.updatedAt,
+      version: candidate.version,
+    },
+    headline: {
+      networkSnr: candidate.networkSnr,
+      falseAlarmRatePerYear: candidate.falseAlarmRatePerYear,
+      detectors: candidate.detectors,
+      chirpMassDetectorFrame: candidate.chirpMassDetectorFrame,
+      dominantClass: candidate.dominantClass,
+    },
+    revisions,
+    tasks: taskRows.map(({ task, site }) => ({
+      id: task.id,
+      kind: task.kind,
+      state: task.state,
+      priority: task.priority,
+      site: site ?? null,
+      claimedBy: person(task.claimedById),
+      windowStart: task.windowStart,
+      windowEnd: task.windowEnd,
+      createdAt: task.createdAt,
+      claimedAt: task.claimedAt,
+      reportedAt: task.reportedAt,
+      cancelledAt: task.cancelledAt,
+    })),
+    payload: current?.revision.payload ?? {},
+  };
+}
+
+async function loadPeople(ids: Array<string | null>): Promise<Map<string, PersonRef>> {
+  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
+  if (wanted.length === 0) return new Map();
+  const db = await getDb();
+  const rows = await db
+    .select({ id: users.id, name: users.name, initials: users.initials })
+    .from(users)
+    .where(inArray(users.id, wanted));
+  return new Map(rows.map((row) => [row.id, row]));
+}
