@@ -75,6 +75,7 @@ export async function startFakeSmtp(options: FakeSmtpOptions = {}): Promise<Fake
     logger: false,
     size: 10 * 1024 * 1024,
     closeTimeout: 500,
+    disableReverseLookup: true, // no DNS round trip per connection; the client is always local
     onConnect: (_session, callback) => callback(down ? temporaryFailure() : undefined),
     onAuth: (auth, _session, callback) => callback(null, { user: auth.username ?? "anonymous" }),
     onMailFrom: (_address, _session, callback) => callback(down ? temporaryFailure() : undefined),
