@@ -15,7 +15,12 @@ export const settingSchemas = {
     nsRadiusKm: z.number().min(8).max(16).default(12),
     sampleCount: z.number().int().min(1000).max(200_000).default(20_000),
   }),
-  /** minutes from receipt: the acknowledgement deadlines the board and review use */
+  /**
+   * Minutes. acknowledgeWarn/Alarm run from receipt (the board's card timers). The others are the review's step
+   * deadlines, each on that step's own duration (lib/review/steps.ts): merger → receipt (feedLatency),
+   * receipt → first page (page), first page → acknowledged (acknowledgeStep), acknowledged → decision (decision),
+   * pursue → first claim (claim), first claim → first report (report).
+   */
   deadlines: z.object({
     acknowledgeWarnMinutes: z.number().min(0.5).max(240).default(3),
     acknowledgeAlarmMinutes: z.number().min(0.5).max(240).default(5),
@@ -24,6 +29,7 @@ export const settingSchemas = {
     reportMinutes: z.number().min(1).max(7 * 24 * 60).default(12 * 60),
     pageMinutes: z.number().min(0.1).max(60).default(1),
     feedLatencyMinutes: z.number().min(0.1).max(60).default(2),
+    acknowledgeStepMinutes: z.number().min(0.5).max(240).default(4),
   }),
 } as const;
 
