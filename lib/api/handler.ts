@@ -27,7 +27,7 @@ export interface HandlerContext<B, Q> {
   requestId: string;
 }
 
-type RouteContext = { params: Promise<Record<string, string | string[]>> };
+type RouteContext = { params?: Promise<Record<string, string | string[]> | undefined> };
 
 /**
  * Wraps a route handler once: resolves the session or bearer token, checks the role, parses input with zod,
@@ -57,7 +57,7 @@ export function handler<B extends ZodType | undefined = undefined, Q extends Zod
 }
 
 async function readParams(ctx?: RouteContext): Promise<Record<string, string>> {
-  const raw = ctx ? await ctx.params : {};
+  const raw = (ctx?.params ? await ctx.params : undefined) ?? {};
   return Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v.join("/") : v]));
 }
 

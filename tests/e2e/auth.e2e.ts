@@ -1,0 +1,49 @@
+import { demoPeople } from "@/lib/seed/scenario";
+import { roleLabels } from "@/lib/auth/roles";
+import { check, type E2EContext } from "./types";
+
+/** Sign-in per role, a wrong password, and 401/403 JSON from the API (issue: foundation, "What must show"). */
+export default async function authE2E(ctx: E2EContext): Promise<void> {
+  const { context, close } = await ctx.launchBrowser();
+  try {
+    const firstOfEachRole = new Map(demoPeople.map((p) => [p.role, p] as const));
+    for (const person of firstOfEachRole.values()) {
+      const page = await context.newPage();
+      await ctx.signIn(page, person.email, person.password);
+      await page.waitForSelector('[data-testid="role-label"]');
+      const role = await page.locator('nav[aria-label="Main"] [data-testid="role-label"]').first().innerText();
+      check(role === roleLabels[person.role], `${person.email}: role label "${role}", expected "${roleLabels[person.role]}"`);
+      const menu = await page.locator('nav[aria-label="Main"] a').allInnerTexts();
+      check(menu.some((t) => t.includes("Triage board")), `${person.role}: menu lacks Triage board: ${menu.join(", ")}`);
+      const seesPeople = menu.some((t) => t.includes("People & roles"));
+      check(seesPeople === (person.role === "coordinator" || person.role === "admin"), `${person.role}: People & roles shown=${seesPeople}`);
+      // A session cookie of the wrong role gets 403 JSON from a coordinator-only route.
+      const res = await page.request.get(`${ctx.baseUrl}/api/v1/users`);
+      const expected = person.role === "coordinator" || person.role === "admin" ? 200 : 403;
+      check(res.status() === expected, `${person.role}: GET /api/v1/users answered ${res.status()}, expected ${expected}`);
+      check((res.headers()["content-type"] ?? "").includes("application/json"), "403/200 must be JSON");
+      await page.screenshot({ path: `${ctx.artifactsDir}/home-${person.role}.png` });
+      await page.close();
+      await context.clearCookies();
+    }
+
+    const page = await context.newPage();
+    await page.goto(`${ctx.baseUrl}/sign-in`);
+    await page.fill("#email", "ada@chirpdesk.test");
+    await page.fill("#password", "not-the-password");
+    await page.click("button[type=submit]");
+    const error = await page.waitForSelector('[data-testid="sign-in-error"]', { timeout: 15_000 });
+    const text = await error.innerText();
+    check(/do not match/.test(text), `wrong password message: "${text}"`);
+
+    // Unauthenticated pages redirect to our sign-in page; the API answers 401 JSON.
+    await page.goto(`${ctx.baseUrl}/triage`);
+    check(new URL(page.url()).pathname === "/sign-in", `unauthenticated /triage went to ${page.url()}`);
+    const anon = await fetch(`${ctx.baseUrl}/api/v1/users`);
+    check(anon.status === 401, `anonymous API call answered ${anon.status}`);
+    const body = (await anon.json()) as { error?: string };
+    check(typeof body.error === "string", "401 body must be JSON with an error");
+  } finally {
+    await close();
+  }
+}
