@@ -1,5 +1,6 @@
 import { SkymapError } from "./errors";
-import { nest2ring, pix2vec_nest, query_disc_inclusive_nest, raDecToVec, type V3 } from "./healpix";
+import { forEachPixelInDisc } from "./disc";
+import { raDecToVec, ringToNest, type V3 } from "./healpix";
 import type { FlatSkymap, MultiOrderSkymap, SkymapMap } from "./types";
 
 /**
@@ -38,25 +39,13 @@ function multiOrderCone(map: MultiOrderSkymap, centre: V3, radius: number): numb
   return sum;
 }
 
-/**
- * Flat maps: candidate pixels from @hscmap/healpix's query_disc (radius ≤ 90°), then the exact centre
- * test. Wider cones are answered as the total minus the complementary cone around the antipode.
- */
+/** Flat maps: whole runs of each HEALPix ring inside the cone (see disc.ts). */
 function flatCone(map: FlatSkymap, centre: V3, radius: number): number {
-  if (radius <= Math.PI / 2) return discSum(map, centre, Math.cos(radius), false);
-  const antipode: V3 = [-centre[0], -centre[1], -centre[2]];
-  // outside the cone: dot(c, v) < cos r  ⇔  dot(c, −v) > cos(π − r)
-  return total(map.probability) - discSum(map, antipode, Math.cos(Math.PI - radius), true);
-}
-
-function discSum(map: FlatSkymap, centre: V3, cosRadius: number, strict: boolean): number {
   const { nside, probability } = map;
   const ring = map.layout === "flat-ring";
   let sum = 0;
-  query_disc_inclusive_nest(nside, centre, Math.acos(cosRadius), (nest) => {
-    const v = pix2vec_nest(nside, nest);
-    const dot = v[0] * centre[0] + v[1] * centre[1] + v[2] * centre[2];
-    if (strict ? dot > cosRadius : dot >= cosRadius) sum += probability[ring ? nest2ring(nside, nest) : nest] ?? 0;
+  forEachPixelInDisc(nside, centre, Math.cos(radius), (ringPix) => {
+    sum += probability[ring ? ringPix : ringToNest(nside, ringPix)] ?? 0;
   });
   return sum;
 }

@@ -1,13 +1,13 @@
 /**
  * HEALPix index arithmetic (Górski et al. 2005, ApJ 622, 759). The @hscmap/healpix package supplies
- * the pixel geometry (fxy2tu / tu2za, query_disc, pix2vec); written here are only what it lacks or
- * does too slowly for millions of pixels: an allocation-free RING→NESTED index, NUNIQ decoding
- * (its own uniq helpers use a different packing), and pixel centres up to order 24.
+ * the pixel geometry (fxy2tu / tu2za, pix2vec); written here are only what it lacks or does too
+ * slowly for millions of pixels: an allocation-free RING→NESTED index, NUNIQ decoding (its own uniq
+ * helpers use a different packing), pixel centres up to order 24, and the disc query in disc.ts.
  */
-import { fxy2tu, nest2ring, pix2vec_nest, pix2vec_ring, query_disc_inclusive_nest, tu2za } from "@hscmap/healpix";
+import { fxy2tu, nest2ring, pix2vec_nest, pix2vec_ring, tu2za } from "@hscmap/healpix";
 import type { V3 } from "@hscmap/healpix";
 
-export { nest2ring, pix2vec_nest, pix2vec_ring, query_disc_inclusive_nest, type V3 };
+export { nest2ring, pix2vec_nest, pix2vec_ring, type V3 };
 
 /** Finest order accepted: NUNIQ values stay below 2^53 (exact doubles) up to here. */
 export const MAX_ORDER = 24;
