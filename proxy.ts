@@ -8,5 +8,5 @@ export function proxy(request: NextRequest) {
 }
 
 export const config = {
-  matcher: ["/((?!api|_next/static|_next/image|fonts|sw.js|favicon.ico|icon.svg).*)"],
+  matcher: ["/((?!api|_next/static|_next/image|fonts|sw.js|favicon.ico|icon.svg|manifest.webmanifest).*)"],
 };

@@ -10,6 +10,7 @@ export const metadata: Metadata = {
   title: { default: "Chirpdesk", template: "%s · Chirpdesk" },
   description: "Triage and follow-up of gravitational-wave candidate triggers",
   manifest: "/manifest.webmanifest",
+  icons: { icon: "/icon.svg" },
 };
 
 export const viewport: Viewport = {
