@@ -1,6 +1,7 @@
-import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, isNull, lte, sql } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidates, events, users, type AppEvent, type Candidate, type TriageState } from "@/db/schema";
+import { alias } from "drizzle-orm/sqlite-core";
+import { candidates, events, shifts, users, type AppEvent, type Candidate, type Role, type TriageState } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
@@ -192,4 +193,53 @@ async function staleError(tx: Tx, current: Candidate, message: string): Promise<
     by: last.by,
     at: last.at,
   });
+}
+
+export interface RosterPerson {
+  id: string;
+  name: string;
+  initials: string;
+  role: Role;
+}
+
+export interface Roster {
+  /** shifts covering now: who is paged first, and their backup */
+  onCall: Array<{ shiftId: string; startsAt: number; endsAt: number; primary: RosterPerson; backup: RosterPerson | null }>;
+  /** everyone who may own a candidate (shifters and coordinators), on call first */
+  people: RosterPerson[];
+}
+
+/** The people beside the board: who is on call now (shifts table) and who else can take a candidate. */
+export async function getRoster(now: Date = new Date()): Promise<Roster> {
+  const db = await getDb();
+  const backup = alias(users, "backup");
+  const person = { id: users.id, name: users.name, initials: users.initials, role: users.role };
+  const [shiftRows, peopleRows] = await Promise.all([
+    db
+      .select({
+        shift: shifts,
+        primary: person,
+        backup: { id: backup.id, name: backup.name, initials: backup.initials, role: backup.role },
+      })
+      .from(shifts)
+      .innerJoin(users, eq(users.id, shifts.primaryId))
+      .leftJoin(backup, eq(backup.id, shifts.backupId))
+      .where(and(lte(shifts.startsAt, now), gt(shifts.endsAt, now)))
+      .orderBy(asc(shifts.startsAt)),
+    db
+      .select(person)
+      .from(users)
+      .where(and(inArray(users.role, [...can.triage]), isNull(users.disabledAt)))
+      .orderBy(asc(users.name)),
+  ]);
+  const onCall = shiftRows.map((row) => ({
+    shiftId: row.shift.id,
+    startsAt: row.shift.startsAt.getTime(),
+    endsAt: row.shift.endsAt.getTime(),
+    primary: row.primary,
+    backup: row.backup?.id ? row.backup : null,
+  }));
+  const onCallIds = new Set(onCall.flatMap((s) => [s.primary.id, s.backup?.id]));
+  const people = [...peopleRows].sort((a, b) => Number(onCallIds.has(b.id)) - Number(onCallIds.has(a.id)));
+  return { onCall, people };
 }
