@@ -1,0 +1,83 @@
+import { NextRequest } from "next/server";
+import { count } from "drizzle-orm";
+import type { SQLiteTable } from "drizzle-orm/sqlite-core";
+import { getDb } from "@/db";
+import { candidateRevisions, candidates, deadLetters, derivedQuantities, events, followUpTasks } from "@/db/schema";
+import { signFeedBody } from "@/lib/feed/signature";
+import { chirpFrequencyAt } from "@/lib/physics";
+import type { FeedCandidate } from "@/lib/validations/feed";
+
+export const testSecret = "feed-test-secret-0123456789-abcdefghijklmnop";
+
+/** The feed route reads only FEED_SIGNING_SECRET; the rest keeps any paging hook that reads the environment happy. */
+export function setTestEnvironment(): void {
+  process.env.FEED_SIGNING_SECRET = testSecret;
+  const defaults: Record<string, string> = {
+    NEXTAUTH_URL: "http://localhost:3999",
+    NEXTAUTH_SECRET: "test-nextauth-secret-0123456789abcdef",
+    ACK_LINK_SECRET: "test-ack-link-secret-0123456789abcdef",
+    VAPID_PUBLIC_KEY: "test-vapid-public-key-000000",
+    VAPID_PRIVATE_KEY: "test-vapid-private-key-00000",
+    VAPID_SUBJECT: "mailto:ops@example.test",
+    SMTP_URL: "smtp://127.0.0.1:1",
+    MAIL_FROM: "Chirpdesk <chirpdesk@example.test>",
+  };
+  for (const [key, value] of Object.entries(defaults)) process.env[key] ??= value;
+}
+
+let counter = 0;
+
+/**
+ * A small valid feed body: a neutron-star pair whose track follows the leading-order chirp
+ * (Peters & Mathews 1963) for a detector-frame chirp mass of 1.2 M☉, merging at eventTime.
+ */
+export function samplePayload(overrides: Partial<FeedCandidate> = {}): FeedCandidate {
+  counter += 1;
+  const t = Array.from({ length: 60 }, (_, i) => -30 + i * 0.45);
+  return {
+    source: "pipeline-test",
+    externalId: `T261201.${String(counter).padStart(5, "0")}`,
+    revision: 1,
+    stage: "first-look",
+    eventTime: "2026-12-01T04:12:00.250Z",
+    detectors: ["N1", "S1"],
+    networkSnr: 12.5,
+    falseAlarmRatePerYear: 0.01,
+    frequencyTrack: { t, f: t.map((time) => chirpFrequencyAt(1.2, 0, time)) },
+    masses: { m1: { mean: 1.5, sd: 0.1 }, m2: { mean: 1.3, sd: 0.1 } },
+    distanceMpc: { mean: 120, sd: 30 },
+    ...overrides,
+  };
+}
+
+export interface SignOptions {
+  nowMs?: number;
+  secret?: string;
+  headers?: Record<string, string>;
+  unsigned?: boolean;
+}
+
+export function feedRequest(rawBody: string, options: SignOptions = {}): NextRequest {
+  const signature = options.unsigned ? {} : signFeedBody(options.secret ?? testSecret, rawBody, options.nowMs ?? Date.now());
+  return new NextRequest("http://localhost/api/v1/feed/candidates", {
+    method: "POST",
+    body: rawBody,
+    headers: { "content-type": "application/json", ...signature, ...options.headers },
+  });
+}
+
+export async function rowCounts() {
+  const db = await getDb();
+  const n = async (table: SQLiteTable) => {
+    const [row] = await db.select({ n: count() }).from(table);
+    return row?.n ?? 0;
+  };
+  return {
+    candidates: await n(candidates),
+    revisions: await n(candidateRevisions),
+    derived: await n(derivedQuantities),
+    events: await n(events),
+    tasks: await n(followUpTasks),
+    deadLetters: await n(deadLetters),
+  };
+}
