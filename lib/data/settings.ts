@@ -2,6 +2,7 @@ import { eq } from "drizzle-orm";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { settings } from "@/db/schema";
+import { escalationPolicySchema } from "@/lib/validations/paging";
 import type { Tx } from "./events";
 
 /**
@@ -31,6 +32,8 @@ export const settingSchemas = {
     feedLatencyMinutes: z.number().min(0.1).max(60).default(2),
     acknowledgeStepMinutes: z.number().min(0.5).max(240).default(4),
   }),
+  /** who is paged about a new candidate, when, and when not (lib/notify/policy.ts) */
+  escalation: escalationPolicySchema,
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;

@@ -1,4 +1,13 @@
+import { and, eq, inArray } from "drizzle-orm";
+import { followUpTasks, sites } from "@/db/schema";
 import type { Tx } from "@/lib/data/events";
+import { appendEvent } from "@/lib/data/events";
+import { eventKinds } from "@/lib/events/kinds";
+import { notifyNow } from "./clock";
+import { cancelCandidatePaging, queueNotifications } from "./outbox";
+import { pageNewCandidate, readCandidateSummary } from "./plan";
+import { readPreferencesMany } from "./preferences";
+import { taskListenersBySite } from "./recipients";
 
 /**
  * Where other areas tell paging that something happened, inside their own transaction, so the outbox rows
@@ -14,8 +23,15 @@ export interface CandidateIngested {
   receivedAt: Date;
 }
 
-export async function onCandidateIngested(_tx: Tx, _info: CandidateIngested): Promise<void> {
-  // Filled in by the paging area (issue 6): page the on-call primary, schedule escalation timers.
+/** A new candidate pages the on-call primary and arms escalation; a withdrawal stops whatever is still waiting. */
+export async function onCandidateIngested(tx: Tx, info: CandidateIngested): Promise<void> {
+  const now = notifyNow();
+  if (info.stage === "withdrawn") {
+    if (!info.isNewCandidate) await cancelCandidatePaging(tx, info.candidateId, "withdrawn by the feed", now);
+    else await pageNewCandidate(tx, info, now);
+    return;
+  }
+  if (info.isNewCandidate) await pageNewCandidate(tx, info, now);
 }
 
 export interface TasksCancelled {
@@ -27,8 +43,79 @@ export interface TasksCancelled {
   reason: string;
 }
 
-export async function onTasksCancelled(_tx: Tx, _info: TasksCancelled): Promise<void> {
-  // Filled in by the paging area (issue 6): tell each owner their task was cancelled.
+/** Tells each owner their task was cancelled (in the app, and by push/e-mail as their task switches say). */
+export async function onTasksCancelled(tx: Tx, info: TasksCancelled): Promise<void> {
+  if (info.ownerIds.length === 0) return;
+  const now = notifyNow();
+  const candidate = await readCandidateSummary(tx, info.candidateId);
+  const name = candidate?.externalId ?? "a candidate";
+  const text = { title: `Follow-up of ${name} cancelled`, body: `Your task was cancelled: ${info.reason}. No observation is needed.` };
+  await queueForEach(tx, info.ownerIds, {
+    eventId: info.eventId,
+    kind: "task-cancelled",
+    ...text,
+    path: "/follow-up",
+    candidateId: info.candidateId,
+    taskId: info.taskIds.length === 1 ? (info.taskIds[0] ?? null) : null,
+    now,
+  });
+}
+
+export interface TasksCreated {
+  candidateId: string;
+  /** the event that created the tasks (one event may create several) */
+  eventId: number;
+  taskIds: string[];
+}
+
+/** Tells observers about new follow-up tasks at the sites they listen to (preferences, else their sites). */
+export async function onTasksCreated(tx: Tx, info: TasksCreated): Promise<void> {
+  if (info.taskIds.length === 0) return;
+  const now = notifyNow();
+  const tasks = await tx
+    .select({ id: followUpTasks.id, siteId: followUpTasks.siteId, kind: followUpTasks.kind, siteCode: sites.code })
+    .from(followUpTasks)
+    .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
+    .where(and(inArray(followUpTasks.id, info.taskIds), eq(followUpTasks.candidateId, info.candidateId)));
+  const bySite = await taskListenersBySite(tx, [...new Set(tasks.flatMap((t) => (t.siteId ? [t.siteId] : [])))]);
+  const perUser = new Map<string, string[]>();
+  for (const task of tasks) {
+    for (const userId of task.siteId ? (bySite.get(task.siteId) ?? []) : []) {
+      perUser.set(userId, [...(perUser.get(userId) ?? []), `${task.kind} at ${task.siteCode ?? "?"}`]);
+    }
+  }
+  if (perUser.size === 0) return;
+  const candidate = await readCandidateSummary(tx, info.candidateId);
+  for (const [userId, items] of perUser) {
+    await queueForEach(tx, [userId], {
+      eventId: info.eventId,
+      kind: "task-created",
+      title: `Follow-up wanted for ${candidate?.externalId ?? "a candidate"}`,
+      body: `New task${items.length > 1 ? "s" : ""}: ${items.join(", ")}. Claim it on the follow-up board.`,
+      path: "/follow-up",
+      candidateId: info.candidateId,
+      taskId: tasks.length === 1 ? (tasks[0]?.id ?? null) : null,
+      now,
+    });
+  }
+  await appendEvent(tx, {
+    at: now,
+    kind: eventKinds.pageQueued,
+    candidateId: info.candidateId,
+    data: { userIds: [...perUser.keys()], channels: ["in-app", "push", "email"], reason: "task-created" },
+  });
+}
+
+type TaskSpec = Omit<Parameters<typeof queueNotifications>[1], "channels" | "ackable" | "onCall">;
+
+/** Task messages: in-app always; push and e-mail as each person's task switches say. */
+async function queueForEach(tx: Tx, userIds: string[], spec: TaskSpec): Promise<void> {
+  const prefs = await readPreferencesMany(tx, userIds);
+  for (const userId of userIds) {
+    const p = prefs.get(userId);
+    const channels = (["push", "email"] as const).filter((c) => p?.taskChannels[c] !== false);
+    await queueNotifications(tx, { ...spec, channels }, [userId]);
+  }
 }
 
 export interface CandidateAcknowledged {
@@ -37,6 +124,7 @@ export interface CandidateAcknowledged {
   at: Date;
 }
 
-export async function onCandidateAcknowledged(_tx: Tx, _info: CandidateAcknowledged): Promise<void> {
-  // Filled in by the paging area (issue 6): stop escalation timers at once.
+/** Stops escalation at once, whichever channel the acknowledgement came from: pending timers and unsent pages. */
+export async function onCandidateAcknowledged(tx: Tx, info: CandidateAcknowledged): Promise<void> {
+  await cancelCandidatePaging(tx, info.candidateId, "acknowledged", info.at);
 }

@@ -1,0 +1,52 @@
+import type { Candidate } from "@/db/schema";
+
+const classLabels: Record<string, string> = { bns: "BNS", nsbh: "NSBH", bbh: "BBH", lowerGap: "lower mass gap" };
+
+/** False alarms per year in words a pager can carry: "1 per 3.2 yr" or "4.5 per yr". */
+export function formatFalseAlarmRate(perYear: number): string {
+  if (!(perYear > 0)) return "no false alarms expected";
+  if (perYear < 1) return `1 per ${formatNumber(1 / perYear)} yr`;
+  return `${formatNumber(perYear)} per yr`;
+}
+
+function formatNumber(x: number): string {
+  if (x >= 1e4) return x.toExponential(1).replace("e+", "e");
+  return x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x.toPrecision(2);
+}
+
+export type CandidateSummary = Pick<
+  Candidate,
+  "id" | "externalId" | "source" | "stage" | "networkSnr" | "falseAlarmRatePerYear" | "dominantClass" | "detectors"
+>;
+
+export interface MessageText {
+  title: string;
+  body: string;
+}
+
+/** One line of facts, the same in push, e-mail and the app. */
+export function candidateFacts(c: CandidateSummary): string {
+  const cls = c.dominantClass ? `likely ${classLabels[c.dominantClass] ?? c.dominantClass}` : "class pending";
+  return `${c.stage}, SNR ${c.networkSnr.toFixed(1)}, FAR ${formatFalseAlarmRate(c.falseAlarmRatePerYear)}, ${cls}, seen by ${c.detectors.join(" ")}`;
+}
+
+export type TextOccasion =
+  | { kind: "page"; role: string }
+  | { kind: "escalation"; role: string; minutesUnacknowledged: number }
+  | { kind: "notice"; reason: string };
+
+/** Title and body of a message about a candidate, the same in push, e-mail and the app. */
+export function candidateTextFor(c: CandidateSummary, occasion: TextOccasion): MessageText {
+  const facts = candidateFacts(c);
+  if (occasion.kind === "page") {
+    return { title: `New candidate ${c.externalId}`, body: `${facts}. You are paged as ${occasion.role}; acknowledge to stop escalation.` };
+  }
+  if (occasion.kind === "escalation") {
+    const minutes = occasion.minutesUnacknowledged < 1 ? "<1" : String(Math.round(occasion.minutesUnacknowledged));
+    return {
+      title: `Unacknowledged for ${minutes} min: ${c.externalId}`,
+      body: `${facts}. Nobody has acknowledged it; you are paged as ${occasion.role}.`,
+    };
+  }
+  return { title: `Candidate ${c.externalId} (not paged: ${occasion.reason})`, body: `${facts}.` };
+}

@@ -1,0 +1,127 @@
+import { eq } from "drizzle-orm";
+import { getDb } from "@/db";
+import { candidates, pushSubscriptions, users, type Notification, type PagingPreferences } from "@/db/schema";
+import { onCallPrimaryUntil } from "@/lib/data/rota";
+import { withWriteLock } from "@/lib/feed/write-lock";
+import { retryDelayMs, type BackoffOptions } from "./backoff";
+import { renderEmail } from "./channels/email-content";
+import type { EmailSender } from "./channels/email";
+import { topicFor, type PushSender } from "./channels/push";
+import type { Outcome } from "./claim";
+import { isWithinLocalWindow } from "./local-time";
+import type { NotificationPayload } from "./outbox";
+import { readPreferences } from "./preferences";
+
+export interface DeliveryContext {
+  push: PushSender | null;
+  email: EmailSender | null;
+  now: Date;
+  maxAttempts: number;
+  backoff: BackoffOptions;
+  random: () => number;
+}
+
+const pageKinds = new Set(["page", "escalation"]);
+
+/** Whether the person's own switches and quiet hours hold this message back; null when it may go. */
+export function muteReason(
+  row: Pick<Notification, "kind" | "channel">,
+  prefs: PagingPreferences,
+  timeZone: string,
+  now: Date,
+): string | null {
+  const channel = row.channel === "push" ? "push" : "email";
+  const switches = pageKinds.has(row.kind) ? prefs : prefs.taskChannels;
+  if (!switches[channel]) return `${channel} switched off in preferences`;
+  if (prefs.quietStart && prefs.quietEnd && isWithinLocalWindow(now, timeZone, prefs.quietStart, prefs.quietEnd)) {
+    return `quiet hours ${prefs.quietStart}–${prefs.quietEnd} ${timeZone}`;
+  }
+  return null;
+}
+
+function retryOrFail(row: Notification, ctx: DeliveryContext, error: string, payload?: NotificationPayload): Outcome {
+  if (row.attempts >= ctx.maxAttempts) return { status: "failed", error: `gave up after ${row.attempts} attempts: ${error}`, payload };
+  const nextAttemptAt = new Date(ctx.now.getTime() + retryDelayMs(row.attempts, ctx.random(), ctx.backoff));
+  return { status: "retry", error, nextAttemptAt, payload };
+}
+
+/** Sends one leased row on its channel and says what became of it. Never throws for a channel's failure. */
+export async function deliver(row: Notification, ctx: DeliveryContext): Promise<Outcome> {
+  const db = await getDb();
+  const payload: NotificationPayload = { tag: `n-${row.id}`, ...(row.payload as NotificationPayload | null) };
+  if (row.attempts > ctx.maxAttempts) return { status: "failed", error: `abandoned ${row.attempts - 1} times by crashed workers` };
+  if (!row.userId) return { status: "failed", error: "row has no recipient" };
+  const [user] = await db.select().from(users).where(eq(users.id, row.userId)).limit(1);
+  if (!user || user.disabledAt) return { status: "skipped", reason: "recipient is no longer active" };
+  if (pageKinds.has(row.kind) && row.candidateId) {
+    const [c] = await db.select({ state: candidates.triageState }).from(candidates).where(eq(candidates.id, row.candidateId)).limit(1);
+    if (c && c.state !== "new") return { status: "skipped", reason: `acknowledged before delivery (${c.state})` };
+  }
+  // The on-call primary cannot mute pages during their shift.
+  const onCall = pageKinds.has(row.kind) && (payload.onCall === true || (await onCallPrimaryUntil(db, user.id, ctx.now)) !== null);
+  if (!onCall) {
+    const muted = muteReason(row, await readPreferences(db, user.id), user.timeZone, ctx.now);
+    if (muted) return { status: "skipped", reason: muted };
+  }
+  return row.channel === "push" ? deliverPush(row, payload, ctx) : deliverEmail(row, payload, user, ctx);
+}
+
+async function deliverEmail(
+  row: Notification,
+  payload: NotificationPayload,
+  user: { email: string; name: string; timeZone: string },
+  ctx: DeliveryContext,
+): Promise<Outcome> {
+  if (!ctx.email) return retryOrFail(row, ctx, "no SMTP transport configured");
+  const content = renderEmail({
+    recipientName: user.name,
+    recipientTimeZone: user.timeZone,
+    title: row.title,
+    body: row.body,
+    url: row.url,
+    ackPageUrl: payload.ackPageUrl,
+    ackExpiresAt: payload.ackExpiresAt,
+  });
+  const result = await ctx.email.send({ to: user.email, ...content, notificationId: row.id });
+  if (result.ok) return { status: "sent" };
+  if (result.permanent) return { status: "failed", error: `SMTP refused (${result.code}): ${result.error}` };
+  return retryOrFail(row, ctx, `SMTP: ${result.error}`);
+}
+
+async function deliverPush(row: Notification, payload: NotificationPayload, ctx: DeliveryContext): Promise<Outcome> {
+  if (!ctx.push) return retryOrFail(row, ctx, "no VAPID keys configured");
+  const db = await getDb();
+  const devices = await db.select().from(pushSubscriptions).where(eq(pushSubscriptions.userId, row.userId ?? ""));
+  const already = new Set(payload.deliveredTo ?? []);
+  const todo = devices.filter((d) => !already.has(d.id));
+  if (devices.length === 0 || (todo.length === 0 && already.size === 0)) return { status: "skipped", reason: "no push device subscribed" };
+  const message = JSON.stringify({
+    title: row.title,
+    body: row.body,
+    url: row.url,
+    candidateId: row.candidateId,
+    ackUrl: payload.ackUrl ?? null,
+    tag: payload.tag,
+  });
+  const transient: string[] = [];
+  const permanent: string[] = [];
+  let gone = 0;
+  await Promise.all(
+    todo.map(async (device) => {
+      const attempt = await ctx.push?.send(device, message, { ttlSeconds: 3600, urgency: pageKinds.has(row.kind) ? "high" : "normal", topic: topicFor(row.candidateId) });
+      if (!attempt) return;
+      if (attempt.ok) {
+        already.add(device.id);
+        await withWriteLock(() => db.update(pushSubscriptions).set({ lastSuccessAt: ctx.now }).where(eq(pushSubscriptions.id, device.id)));
+      } else if (attempt.gone) {
+        gone += 1;
+        await withWriteLock(() => db.delete(pushSubscriptions).where(eq(pushSubscriptions.id, device.id)));
+      } else (attempt.permanent ? permanent : transient).push(attempt.error);
+    }),
+  );
+  const next: NotificationPayload = { ...payload, deliveredTo: [...already] };
+  if (transient.length > 0) return retryOrFail(row, ctx, transient.join("; "), next);
+  if (already.size > 0) return { status: "sent", payload: next };
+  if (permanent.length > 0) return { status: "failed", error: permanent.join("; "), payload: next };
+  return { status: "skipped", reason: `push device${gone === 1 ? "" : "s"} gone (404/410); subscription removed`, payload: next };
+}

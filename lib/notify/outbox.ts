@@ -1,0 +1,103 @@
+import { and, eq, inArray } from "drizzle-orm";
+import { escalations, notifications, type Channel, type NewNotification } from "@/db/schema";
+import type { Tx } from "@/lib/data/events";
+import { ackLinkSecret, createAckToken } from "./ack-links";
+import { ackConfirmPath, ackPagePath, appBaseUrl } from "./links";
+
+export type NotificationKind = "page" | "escalation" | "notice" | "task-created" | "task-cancelled" | "test";
+
+/** What the worker and the UI read from `notifications.payload`. */
+export interface NotificationPayload {
+  tag: string;
+  /** the page went to the on-call primary for their shift: quiet hours and channel switches do not apply */
+  onCall?: boolean;
+  /** acknowledge page (GET shows a button) and the POST target the service worker calls */
+  ackPageUrl?: string;
+  ackUrl?: string;
+  ackExpiresAt?: string;
+  /** push subscriptions this row already reached, so a retry skips them */
+  deliveredTo?: string[];
+  [key: string]: unknown;
+}
+
+export interface QueueSpec {
+  eventId: number;
+  kind: NotificationKind;
+  title: string;
+  body: string;
+  /** path inside the app, e.g. /candidates/<id> */
+  path: string;
+  candidateId?: string | null;
+  taskId?: string | null;
+  /** outside channels to try; an in-app row is always written and is sent at once */
+  channels: Array<Exclude<Channel, "in-app">>;
+  onCall?: boolean;
+  /** give push and e-mail a one-click acknowledge link for the candidate */
+  ackable?: boolean;
+  now: Date;
+}
+
+export const dedupeKey = (eventId: number, userId: string, channel: Channel) => `${eventId}:${userId}:${channel}`;
+
+/**
+ * Writes one row per (event, recipient, channel) in the caller's transaction; a repeat of the same key is
+ * ignored, so replaying an event never pages twice. Returns how many rows were new.
+ */
+export async function queueNotifications(tx: Tx, spec: QueueSpec, userIds: readonly string[]): Promise<number> {
+  const secret = spec.ackable && spec.candidateId ? ackLinkSecret() : null;
+  const base = appBaseUrl();
+  const tag = spec.candidateId ? `candidate-${spec.candidateId}` : `${spec.kind}-${spec.eventId}`;
+  const rows: NewNotification[] = [];
+  for (const userId of new Set(userIds)) {
+    const common = {
+      eventId: spec.eventId,
+      userId,
+      kind: spec.kind,
+      candidateId: spec.candidateId ?? null,
+      taskId: spec.taskId ?? null,
+      title: spec.title,
+      body: spec.body,
+      url: base + spec.path,
+      createdAt: spec.now,
+      nextAttemptAt: spec.now,
+    };
+    rows.push({ ...common, dedupeKey: dedupeKey(spec.eventId, userId, "in-app"), channel: "in-app", status: "sent", sentAt: spec.now, payload: { tag } });
+    for (const channel of spec.channels) {
+      const payload: NotificationPayload = { tag, ...(spec.onCall ? { onCall: true } : {}) };
+      if (secret && spec.candidateId) {
+        const { token, expiresAt } = await createAckToken(tx, { candidateId: spec.candidateId, userId, now: spec.now }, secret);
+        payload.ackPageUrl = base + ackPagePath(token);
+        payload.ackUrl = base + ackConfirmPath(token);
+        payload.ackExpiresAt = expiresAt.toISOString();
+      }
+      rows.push({ ...common, dedupeKey: dedupeKey(spec.eventId, userId, channel), channel, status: "pending", payload });
+    }
+  }
+  if (rows.length === 0) return 0;
+  const inserted = await tx.insert(notifications).values(rows).onConflictDoNothing({ target: notifications.dedupeKey }).returning({ id: notifications.id });
+  return inserted.length;
+}
+
+/**
+ * Stops everything still waiting for a candidate: pending escalation timers, and pages not yet handed to
+ * a channel. Rows a worker holds right now (status "sending") finish; the ack state stops the next step.
+ */
+export async function cancelCandidatePaging(tx: Tx, candidateId: string, reason: string, now: Date): Promise<{ escalations: number; notifications: number }> {
+  const stopped = await tx
+    .update(escalations)
+    .set({ status: "cancelled", firedAt: null, lockedBy: null, lockedUntil: null })
+    .where(and(eq(escalations.candidateId, candidateId), eq(escalations.status, "pending")))
+    .returning({ id: escalations.id });
+  const dropped = await tx
+    .update(notifications)
+    .set({ status: "cancelled", lastError: reason, lockedBy: null, lockedUntil: null, nextAttemptAt: now })
+    .where(
+      and(
+        eq(notifications.candidateId, candidateId),
+        eq(notifications.status, "pending"),
+        inArray(notifications.kind, ["page", "escalation"]),
+      ),
+    )
+    .returning({ id: notifications.id });
+  return { escalations: stopped.length, notifications: dropped.length };
+}

@@ -1,0 +1,100 @@
+import { eq } from "drizzle-orm";
+import { candidates, escalations, users } from "@/db/schema";
+import type { Tx } from "@/lib/data/events";
+import { appendEvent } from "@/lib/data/events";
+import { findShiftAt } from "@/lib/data/rota";
+import { getSetting } from "@/lib/data/settings";
+import { eventKinds } from "@/lib/events/kinds";
+import { candidateTextFor, type CandidateSummary } from "./content";
+import { candidatePath } from "./links";
+import { queueNotifications } from "./outbox";
+import { planPaging } from "./policy";
+import { resolveTarget, targetRoleLabel, type Recipient } from "./recipients";
+
+export interface NewCandidateInfo {
+  candidateId: string;
+  eventId: number;
+  stage: string;
+  falseAlarmRatePerYear: number;
+  receivedAt: Date;
+}
+
+export async function readCandidateSummary(tx: Tx, candidateId: string): Promise<CandidateSummary | null> {
+  const [row] = await tx.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
+  return row ?? null;
+}
+
+/**
+ * A new candidate: page the first step that reaches anyone (normally the on-call primary) on every channel,
+ * and store the later steps as escalation timers. A policy rule may instead page nobody, or reach everyone the
+ * steps would reach in the app only.
+ */
+export async function pageNewCandidate(tx: Tx, info: NewCandidateInfo, now: Date): Promise<void> {
+  const candidate = await readCandidateSummary(tx, info.candidateId);
+  if (!candidate) return;
+  const policy = await getSetting("escalation", tx);
+  const shift = await findShiftAt(tx, info.receivedAt);
+  const [primary] = shift
+    ? await tx.select({ timeZone: users.timeZone }).from(users).where(eq(users.id, shift.primaryId)).limit(1)
+    : [];
+  const plan = planPaging(policy, { ...info, primaryTimeZone: primary?.timeZone ?? "UTC", now });
+  if (plan.action === "none") return;
+
+  const path = candidatePath(info.candidateId);
+  if (plan.action === "in-app-only") {
+    const everyone: Recipient[] = [];
+    for (const step of plan.steps) everyone.push(...(await resolveTarget(tx, step.target, shift)));
+    const userIds = everyone.map((r) => r.id);
+    const text = candidateTextFor(candidate, { kind: "notice", reason: plan.reason });
+    await queueNotifications(tx, { eventId: info.eventId, kind: "notice", ...text, path, candidateId: info.candidateId, channels: [], now }, userIds);
+    await appendEvent(tx, {
+      at: now,
+      kind: eventKinds.pageQueued,
+      candidateId: info.candidateId,
+      data: { userIds, channels: ["in-app"], reason: "new-candidate", rule: plan.reason },
+    });
+    return;
+  }
+
+  let first = 0;
+  let recipients: Recipient[] = [];
+  for (; first < plan.steps.length; first++) {
+    const step = plan.steps[first];
+    if (!step) break;
+    recipients = await resolveTarget(tx, step.target, shift);
+    if (recipients.length > 0) break;
+  }
+  const firstStep = plan.steps[first];
+  if (firstStep) {
+    const text = candidateTextFor(candidate, { kind: "page", role: targetRoleLabel[firstStep.target] });
+    const userIds = recipients.map((r) => r.id);
+    await queueNotifications(
+      tx,
+      {
+        eventId: info.eventId,
+        kind: "page",
+        ...text,
+        path,
+        candidateId: info.candidateId,
+        channels: ["push", "email"],
+        onCall: firstStep.target === "primary",
+        ackable: true,
+        now,
+      },
+      userIds,
+    );
+    await appendEvent(tx, {
+      at: now,
+      kind: eventKinds.pageQueued,
+      candidateId: info.candidateId,
+      data: { userIds, channels: ["push", "email", "in-app"], reason: "new-candidate", step: firstStep.step, target: firstStep.target },
+    });
+  }
+  const later = plan.steps.slice(first + 1);
+  if (later.length > 0) {
+    await tx
+      .insert(escalations)
+      .values(later.map((s) => ({ candidateId: info.candidateId, step: s.step, target: s.target, dueAt: s.dueAt, createdAt: now })))
+      .onConflictDoNothing();
+  }
+}

@@ -1,0 +1,159 @@
+import { randomUUID } from "node:crypto";
+import { hostname } from "node:os";
+import type { Notification } from "@/db/schema";
+import { defaultBackoff, type BackoffOptions } from "./backoff";
+import { createEmailSender, type EmailSender } from "./channels/email";
+import { createPushSender, type PushSender } from "./channels/push";
+import { claimDueNotifications, recordOutcome, type Outcome } from "./claim";
+import { deliver, type DeliveryContext } from "./deliver";
+import { fireDueEscalations } from "./escalate";
+import { queueHandoffs } from "./handoffs";
+
+export interface WorkerOptions {
+  workerId?: string;
+  /** the worker's clock (Unix ms); tests inject one */
+  now?: () => number;
+  batchSize?: number;
+  /** how long a claimed row stays with this worker; far longer than a send may take */
+  leaseMs?: number;
+  maxAttempts?: number;
+  /** idle wait between polls of the outbox */
+  pollMs?: number;
+  /** sends in flight at once */
+  concurrency?: number;
+  backoff?: BackoffOptions;
+  random?: () => number;
+  push?: PushSender | null;
+  email?: EmailSender | null;
+  log?: (message: string) => void;
+}
+
+export interface WorkerRun {
+  escalationsFired: number;
+  escalationsCancelled: number;
+  claimed: number;
+  outcomes: Record<Outcome["status"], number>;
+  /** rows whose lease another worker had taken by the time this one finished (never expected) */
+  leaseLost: number;
+}
+
+/** Channel senders from the environment (VAPID_*, SMTP_URL, MAIL_FROM); a missing one is null and its rows retry. */
+export function sendersFromEnv(env: Record<string, string | undefined> = process.env): { push: PushSender | null; email: EmailSender | null } {
+  const push =
+    env.VAPID_PUBLIC_KEY && env.VAPID_PRIVATE_KEY && env.VAPID_SUBJECT
+      ? createPushSender({ publicKey: env.VAPID_PUBLIC_KEY, privateKey: env.VAPID_PRIVATE_KEY, subject: env.VAPID_SUBJECT })
+      : null;
+  const email = env.SMTP_URL && env.MAIL_FROM ? createEmailSender({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM }) : null;
+  return { push, email };
+}
+
+async function inPool<T>(items: readonly T[], width: number, fn: (item: T) => Promise<void>): Promise<void> {
+  let next = 0;
+  const lanes = Array.from({ length: Math.min(width, items.length) }, async () => {
+    while (next < items.length) {
+      const item = items[next++];
+      if (item !== undefined) await fn(item);
+    }
+  });
+  await Promise.all(lanes);
+}
+
+/** The outbox worker: fires escalation timers, sends due rows, queues shift handoffs. Several may run at once. */
+export function createWorker(options: WorkerOptions = {}) {
+  const workerId = options.workerId ?? `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
+  const now = options.now ?? Date.now;
+  const batchSize = options.batchSize ?? 25;
+  const leaseMs = options.leaseMs ?? 60_000;
+  const pollMs = options.pollMs ?? 200;
+  const log = options.log ?? ((m: string) => console.log(`[worker ${workerId}] ${m}`));
+  const senders = options.push !== undefined || options.email !== undefined ? { push: options.push ?? null, email: options.email ?? null } : sendersFromEnv();
+  let running = false;
+  let loop: Promise<void> | null = null;
+  let wake: (() => void) | null = null;
+
+  async function sendRow(row: Notification, run: WorkerRun): Promise<void> {
+    const ctx: DeliveryContext = {
+      ...senders,
+      now: new Date(now()),
+      maxAttempts: options.maxAttempts ?? 8,
+      backoff: options.backoff ?? defaultBackoff,
+      random: options.random ?? Math.random,
+    };
+    let outcome: Outcome;
+    try {
+      outcome = await deliver(row, ctx);
+    } catch (error) {
+      outcome = { status: "retry", error: `worker error: ${String(error)}`, nextAttemptAt: new Date(now() + 5_000) };
+    }
+    // Marked the moment the channel answered: the only window for a repeat is a crash between these two lines.
+    const kept = await recordOutcome(row, workerId, outcome, new Date(now()));
+    if (!kept) run.leaseLost += 1;
+    run.outcomes[outcome.status] += 1;
+    if (outcome.status === "failed") log(`notification ${row.id} (${row.channel}) failed: ${outcome.error}`);
+  }
+
+  async function runOnce(): Promise<WorkerRun> {
+    const run: WorkerRun = {
+      escalationsFired: 0,
+      escalationsCancelled: 0,
+      claimed: 0,
+      outcomes: { sent: 0, skipped: 0, retry: 0, failed: 0 },
+      leaseLost: 0,
+    };
+    const fired = await fireDueEscalations(workerId, new Date(now()));
+    run.escalationsFired = fired.fired;
+    run.escalationsCancelled = fired.cancelled;
+    const rows = await claimDueNotifications(workerId, new Date(now()), leaseMs, batchSize);
+    run.claimed = rows.length;
+    await inPool(rows, options.concurrency ?? 8, (row) => sendRow(row, run));
+    await queueHandoffs(new Date(now()), log);
+    return run;
+  }
+
+  async function runLoop(): Promise<void> {
+    let failures = 0;
+    while (running) {
+      let busy = false;
+      try {
+        const run = await runOnce();
+        busy = run.claimed >= batchSize || run.escalationsFired > 0;
+        failures = 0;
+      } catch (error) {
+        failures += 1;
+        log(`cycle failed (${failures}): ${error instanceof Error ? error.message : String(error)}`);
+      }
+      if (!running || busy) continue;
+      await new Promise<void>((resolve) => {
+        const timer = setTimeout(resolve, failures > 0 ? Math.min(pollMs * 2 ** failures, 10_000) : pollMs);
+        wake = () => {
+          clearTimeout(timer);
+          resolve();
+        };
+      });
+      wake = null;
+    }
+  }
+
+  return {
+    workerId,
+    runOnce,
+    start(): void {
+      if (running) return;
+      running = true;
+      loop = runLoop();
+    },
+    async stop(): Promise<void> {
+      running = false;
+      wake?.();
+      await loop;
+      loop = null;
+    },
+    /** Closes the channel connections (after stop). */
+    close(): void {
+      senders.push?.close();
+      senders.email?.close();
+    },
+  };
+}
+
+export type NotifyWorker = ReturnType<typeof createWorker>;
