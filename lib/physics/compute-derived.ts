@@ -1,0 +1,215 @@
+/**
+ * computeDerived: everything the feed stores and answers for one trigger revision, assembled from the pieces in
+ * this folder. Pure and deterministic (the Monte Carlo is seeded from a string); never throws — each block fails
+ * on its own into null plus a reason.
+ */
+import { fitDerivativeTrack, type DerivativeTrackInput } from "./chirp-fit-derivative";
+import { fitTimeTrack, type TimeTrackInput } from "./chirp-fit-time";
+import type { ChirpMassBlock, Derived, FitDiagnostics, FitPlot, ValueWithSd } from "./derived-types";
+import { planck18DistanceTable, redshiftPerDistance } from "./distance-table";
+import { derivativeTrackPlot, timeTrackPlot } from "./fit-plot";
+import { computeMergerFrequencies } from "./merger-frequencies";
+import { describeFailure, fail, succeed, type PhysicsResult } from "./result";
+import { computeSourceClasses, type GaussianEstimate } from "./source-class";
+import type { PhysicsSettings, TriggerPhysicsInput } from "./index";
+
+type TrackFitOutcome = { fit: FitDiagnostics; plot: FitPlot; chirpMass: ValueWithSd; coalescence: ValueWithSd | null };
+
+/** Runs `body`, turning an unexpected exception into a typed internal-error failure. */
+function guarded<T>(body: () => PhysicsResult<T>): PhysicsResult<T> {
+  try {
+    return body();
+  } catch (error) {
+    return fail("internal-error", error instanceof Error ? error.message : String(error));
+  }
+}
+
+function frequencyRange(f: readonly number[]): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (const value of f) {
+    min = Math.min(min, value);
+    max = Math.max(max, value);
+  }
+  return { min, max };
+}
+
+function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): PhysicsResult<TrackFitOutcome> {
+  if (track === undefined || track === null || typeof track !== "object") return fail("missing-input", "no frequency track");
+  if ("t" in track) {
+    const timeTrack: TimeTrackInput = track;
+    const result = fitTimeTrack(timeTrack);
+    if (!result.ok) return result;
+    const fit = result.value;
+    const range = frequencyRange(track.f);
+    const warnings: string[] = [];
+    if (fit.samplesAfterCoalescence > 0) warnings.push(`${fit.samplesAfterCoalescence} samples at or after the fitted coalescence time`);
+    if (fit.reducedChiSquare !== null && fit.reducedChiSquare > 3) {
+      warnings.push(`residuals exceed the quoted uncertainties (χ²/dof = ${fit.reducedChiSquare.toFixed(2)}); errors scaled up`);
+    }
+    return succeed({
+      fit: {
+        trackKind: "time",
+        residualRms: Number.isFinite(fit.residualRmsHz) ? fit.residualRmsHz : null,
+        residualRmsUnit: "Hz",
+        samplesUsed: fit.samplesUsed,
+        reducedChiSquare: fit.reducedChiSquare,
+        uncertaintyScale: fit.uncertaintyScale,
+        weighting: fit.weighting,
+        frequencyMinHz: range.min,
+        frequencyMaxHz: range.max,
+        samplesAfterCoalescence: fit.samplesAfterCoalescence,
+        warnings,
+      },
+      plot: timeTrackPlot(fit, track.t, track.f),
+      chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
+      coalescence: { value: fit.coalescenceTimeS, sd: fit.coalescenceTimeSd },
+    });
+  }
+  const derivativeTrack: DerivativeTrackInput = track;
+  const result = fitDerivativeTrack(derivativeTrack);
+  if (!result.ok) return result;
+  const fit = result.value;
+  const range = frequencyRange(track.f);
+  const warnings: string[] = [];
+  if (fit.reducedChiSquare !== null && fit.reducedChiSquare > 3) {
+    warnings.push(`residuals exceed the quoted uncertainties (χ²/dof = ${fit.reducedChiSquare.toFixed(2)}); errors scaled up`);
+  }
+  return succeed({
+    fit: {
+      trackKind: "derivative",
+      residualRms: fit.residualRmsFraction,
+      residualRmsUnit: "fraction",
+      samplesUsed: fit.samplesUsed,
+      reducedChiSquare: fit.reducedChiSquare,
+      uncertaintyScale: fit.uncertaintyScale,
+      weighting: fit.weighting,
+      frequencyMinHz: range.min,
+      frequencyMaxHz: range.max,
+      samplesAfterCoalescence: 0,
+      warnings,
+    },
+    plot: derivativeTrackPlot(fit, track.f, track.dfdt),
+    chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
+    coalescence: null,
+  });
+}
+
+function isGaussian(value: GaussianEstimate | undefined): value is GaussianEstimate {
+  return value !== undefined && value !== null && Number.isFinite(value.mean) && Number.isFinite(value.sd) && value.mean > 0 && value.sd >= 0;
+}
+
+/** Redshift at the mean distance (Planck 2018), sd by first-order propagation of the distance sd. */
+function redshiftFromDistance(distance: GaussianEstimate): PhysicsResult<ValueWithSd> {
+  if (!isGaussian(distance)) return fail("invalid-distance", "distance needs a finite mean > 0 and a finite sd ≥ 0");
+  const table = planck18DistanceTable();
+  const z = table.redshift(distance.mean);
+  if (!Number.isFinite(z)) return fail("distance-out-of-range", `mean distance beyond the table (z > ${table.maxRedshift})`);
+  return succeed({ value: z, sd: Math.abs(redshiftPerDistance(z, table)) * distance.sd });
+}
+
+function sourceFrame(detector: ValueWithSd, redshift: ValueWithSd): ValueWithSd {
+  const value = detector.value / (1 + redshift.value);
+  const relative = Math.hypot(detector.sd / detector.value, redshift.sd / (1 + redshift.value));
+  return { value, sd: value * relative };
+}
+
+const errorOf = <T>(result: PhysicsResult<T>): string | null => (result.ok ? null : describeFailure(result));
+const valueOf = <T>(result: PhysicsResult<T>): T | null => (result.ok ? result.value : null);
+
+export function computeDerivedPhysics(input: TriggerPhysicsInput, settings: PhysicsSettings, seed: string): Derived {
+  const safeInput: Partial<TriggerPhysicsInput> = input !== null && typeof input === "object" ? input : {};
+  const track = guarded(() => fitTrack(safeInput.frequencyTrack));
+  const distanceGiven = safeInput.distanceMpc !== undefined && safeInput.distanceMpc !== null;
+  const redshift = guarded(() => (distanceGiven ? redshiftFromDistance(safeInput.distanceMpc as GaussianEstimate) : succeed({ value: 0, sd: 0 })));
+
+  const chirpMass = guarded<ChirpMassBlock>(() => {
+    if (!track.ok) return track;
+    return succeed({
+      detectorFrame: track.value.chirpMass,
+      sourceFrame: redshift.ok ? sourceFrame(track.value.chirpMass, redshift.value) : null,
+      sourceFrameError: errorOf(redshift),
+    });
+  });
+  const coalescence = guarded<ValueWithSd>(() => {
+    if (!track.ok) return track;
+    if (track.value.coalescence === null) return fail("missing-input", "(f, df/dt) pairs carry no times, so no coalescence time");
+    return succeed(track.value.coalescence);
+  });
+  const receiptOffsetS = safeInput.secondsSinceEventTimeAtReceipt;
+  const secondsToMerger = guarded<number>(() => {
+    if (!coalescence.ok) return coalescence;
+    if (typeof receiptOffsetS !== "number" || !Number.isFinite(receiptOffsetS)) {
+      return fail("missing-input", "secondsSinceEventTimeAtReceipt is not a finite number");
+    }
+    return succeed(coalescence.value.value - receiptOffsetS);
+  });
+
+  const masses = safeInput.masses;
+  const spinsGiven = safeInput.spins !== undefined && safeInput.spins !== null;
+  const chi1 = spinsGiven ? (safeInput.spins?.chi1 ?? Number.NaN) : 0;
+  const chi2 = spinsGiven ? (safeInput.spins?.chi2 ?? Number.NaN) : 0;
+  const classes = guarded(() => {
+    if (!masses || typeof masses !== "object") return fail("missing-input", "no component masses");
+    if (distanceGiven && !redshift.ok) return redshift;
+    return computeSourceClasses(
+      {
+        mass1DetectorFrame: masses.m1,
+        mass2DetectorFrame: masses.m2,
+        chi1,
+        chi2,
+        distanceMpc: distanceGiven ? (safeInput.distanceMpc as GaussianEstimate) : null,
+      },
+      settings,
+      seed,
+    );
+  });
+  const merger = guarded(() => {
+    if (!masses || typeof masses !== "object" || !isGaussian(masses.m1) || !isGaussian(masses.m2)) {
+      return fail("invalid-mass", "each mass needs a finite mean > 0 and a finite sd ≥ 0");
+    }
+    return computeMergerFrequencies({
+      mass1DetectorFrame: masses.m1.mean,
+      mass2DetectorFrame: masses.m2.mean,
+      chi1,
+      chi2,
+      spinsAssumed: !spinsGiven,
+      redshift: redshift.ok ? redshift.value.value : null,
+    });
+  });
+
+  const classValue = valueOf(classes);
+  const classError = errorOf(classes);
+  const trackValue = valueOf(track);
+  return {
+    chirpMass: valueOf(chirpMass),
+    chirpMassError: errorOf(chirpMass),
+    coalescenceTime: coalescence.ok ? coalescence.value.value : null,
+    coalescenceTimeSd: coalescence.ok ? coalescence.value.sd : null,
+    coalescenceTimeError: errorOf(coalescence),
+    secondsToMerger: valueOf(secondsToMerger),
+    secondsToMergerError: errorOf(secondsToMerger),
+    classProbabilities: classValue?.classProbabilities ?? null,
+    classProbabilitiesError: classError,
+    classSampleCount: classValue?.sampleCount ?? 0,
+    pNeutronStar: classValue?.pNeutronStar ?? null,
+    pNeutronStarError: classError,
+    pRemnantMatter: classValue?.pRemnantMatter ?? null,
+    pRemnantMatterError: classError,
+    mergerFrequency: valueOf(merger),
+    mergerFrequencyError: errorOf(merger),
+    redshift: valueOf(redshift),
+    redshiftAssumed: !distanceGiven,
+    redshiftError: errorOf(redshift),
+    fit: trackValue?.fit ?? null,
+    fitError: errorOf(track),
+    plot: trackValue?.plot ?? null,
+    plotError: errorOf(track),
+    settingsUsed: {
+      nsMaxMassSolar: settings?.nsMaxMassSolar,
+      gapUpperMassSolar: settings?.gapUpperMassSolar,
+      nsRadiusKm: settings?.nsRadiusKm,
+      sampleCount: settings?.sampleCount,
+    },
+  };
+}

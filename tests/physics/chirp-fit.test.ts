@@ -1,0 +1,140 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { fitDerivativeTrack } from "@/lib/physics/chirp-fit-derivative";
+import { fitTimeTrack } from "@/lib/physics/chirp-fit-time";
+import { chirpMassFromComponents } from "@/lib/physics/chirp";
+import { syntheticDerivativeTrack, syntheticTimeTrack } from "./track-helpers";
+
+// Tracks are generated from the Peters & Mathews 1963 chirp f(t) itself (issue 3: "synthetic tracks generated
+// from the formula"), so a noiseless fit must return the input chirp mass and coalescence time.
+const BNS_CHIRP_MASS = chirpMassFromComponents(1.4, 1.4);
+const BBH_CHIRP_MASS = chirpMassFromComponents(36, 29);
+
+describe("fitTimeTrack, noiseless", () => {
+  const cases = [
+    { name: "neutron-star pair, 60 s to 1 s before merger", chirpMass: BNS_CHIRP_MASS, tcS: 3, startS: -57, endS: 2 },
+    { name: "black-hole pair, last 0.2 s", chirpMass: BBH_CHIRP_MASS, tcS: 0.01, startS: -0.2, endS: -0.01 },
+  ];
+  for (const c of cases) {
+    it(`recovers 𝓜 to 0.1 % and t_c for a ${c.name}`, () => {
+      const track = syntheticTimeTrack({ ...c, samples: 400 });
+      const fit = fitTimeTrack({ t: track.t, f: track.f });
+      expect(fit.ok).toBe(true);
+      if (!fit.ok) return;
+      expect(Math.abs(fit.value.chirpMassDetectorFrame / c.chirpMass - 1)).toBeLessThan(1e-3);
+      expect(Math.abs(fit.value.coalescenceTimeS - c.tcS)).toBeLessThan(1e-6 * Math.abs(c.endS - c.startS) + 1e-9);
+      expect(fit.value.samplesUsed).toBe(400);
+      expect(fit.value.residualRmsHz).toBeLessThan(1e-6);
+    });
+  }
+});
+
+describe("fitTimeTrack with 1 % frequency noise", () => {
+  const realisations = 200;
+  function pulls(withSigma: boolean) {
+    const chirpPulls: number[] = [];
+    const tcPulls: number[] = [];
+    for (let k = 0; k < realisations; k++) {
+      const track = syntheticTimeTrack({
+        chirpMass: BNS_CHIRP_MASS, tcS: 3, startS: -40, endS: 1, samples: 300, relativeNoise: 0.01, seed: `noise-${k}`,
+      });
+      const fit = fitTimeTrack(withSigma ? track : { t: track.t, f: track.f });
+      if (!fit.ok) throw new Error(fit.detail);
+      chirpPulls.push((fit.value.chirpMassDetectorFrame - BNS_CHIRP_MASS) / fit.value.chirpMassDetectorFrameSd);
+      tcPulls.push((fit.value.coalescenceTimeS - 3) / fit.value.coalescenceTimeSd);
+    }
+    return { chirpPulls, tcPulls };
+  }
+  // For a correct 1σ error, |pull| < 1 in 68.3 % of realisations (binomial sd over 200 runs ≈ 3.3 %).
+  const within = (values: number[], limit: number) => values.filter((v) => Math.abs(v) < limit).length / values.length;
+
+  for (const withSigma of [true, false]) {
+    it(`quotes honest uncertainties ${withSigma ? "with per-sample σ" : "from the scatter alone"}`, () => {
+      const { chirpPulls, tcPulls } = pulls(withSigma);
+      expect(within(chirpPulls, 1)).toBeGreaterThan(0.58);
+      expect(within(chirpPulls, 1)).toBeLessThan(0.79);
+      expect(within(chirpPulls, 3)).toBeGreaterThan(0.97);
+      expect(within(tcPulls, 1)).toBeGreaterThan(0.58);
+      expect(within(tcPulls, 1)).toBeLessThan(0.79);
+    });
+  }
+
+  it("keeps a single noisy fit within its quoted uncertainty (3σ) and reports χ²/dof ≈ 1", () => {
+    const track = syntheticTimeTrack({
+      chirpMass: BBH_CHIRP_MASS, tcS: 0, startS: -0.25, endS: -0.02, samples: 200, relativeNoise: 0.01, seed: "single",
+    });
+    const fit = fitTimeTrack(track);
+    expect(fit.ok).toBe(true);
+    if (!fit.ok) return;
+    expect(Math.abs(fit.value.chirpMassDetectorFrame - BBH_CHIRP_MASS)).toBeLessThan(3 * fit.value.chirpMassDetectorFrameSd);
+    expect(fit.value.reducedChiSquare).toBeGreaterThan(0.7);
+    expect(fit.value.reducedChiSquare).toBeLessThan(1.3);
+    expect(fit.value.residualRmsHz).toBeGreaterThan(0);
+  });
+});
+
+describe("fitDerivativeTrack (f, df/dt pairs)", () => {
+  it("recovers 𝓜 to 0.1 % without noise", () => {
+    const track = syntheticDerivativeTrack({ chirpMass: 8.7, lowHz: 20, highHz: 150, samples: 50 });
+    const fit = fitDerivativeTrack({ f: track.f, dfdt: track.dfdt });
+    expect(fit.ok && Math.abs(fit.value.chirpMassDetectorFrame / 8.7 - 1)).toBeLessThan(1e-3);
+  });
+
+  it("quotes honest uncertainties with 5 % df/dt noise", () => {
+    let inside = 0;
+    for (let k = 0; k < 200; k++) {
+      const track = syntheticDerivativeTrack({ chirpMass: 8.7, lowHz: 20, highHz: 150, samples: 40, relativeNoise: 0.05, seed: `d-${k}` });
+      const fit = fitDerivativeTrack(track);
+      if (!fit.ok) throw new Error(fit.detail);
+      if (Math.abs(fit.value.chirpMassDetectorFrame - 8.7) < fit.value.chirpMassDetectorFrameSd) inside++;
+    }
+    expect(inside / 200).toBeGreaterThan(0.58);
+    expect(inside / 200).toBeLessThan(0.79);
+  });
+
+  it("rejects non-rising or malformed pairs with typed failures", () => {
+    expect(fitDerivativeTrack({ f: [20, 30, 40], dfdt: [1, -2, 3] })).toMatchObject({ ok: false, reason: "frequency-not-rising" });
+    expect(fitDerivativeTrack({ f: [20, 30], dfdt: [1, 2] })).toMatchObject({ ok: false, reason: "too-few-samples" });
+    expect(fitDerivativeTrack({ f: [20, 0, 40], dfdt: [1, 2, 3] })).toMatchObject({ ok: false, reason: "non-positive-frequency" });
+    expect(fitDerivativeTrack({ f: [20, 30, 40], dfdt: [1, 2] })).toMatchObject({ ok: false, reason: "length-mismatch" });
+  });
+});
+
+describe("bad time tracks give typed failures", () => {
+  const good = syntheticTimeTrack({ chirpMass: 1.2, tcS: 1, startS: -10, endS: 0, samples: 10 });
+  const cases: [string, { t: number[]; f: number[]; fSigma?: number[] }, string][] = [
+    ["two samples", { t: [0, 1], f: [30, 31] }, "too-few-samples"],
+    ["mismatched lengths", { t: [0, 1, 2], f: [30, 31] }, "length-mismatch"],
+    ["a NaN frequency", { t: [0, 1, 2], f: [30, Number.NaN, 32] }, "non-finite-value"],
+    ["an infinite time", { t: [0, Number.POSITIVE_INFINITY, 2], f: [30, 31, 32] }, "non-finite-value"],
+    ["a zero frequency", { t: [0, 1, 2], f: [30, 0, 32] }, "non-positive-frequency"],
+    ["a negative σ", { t: [0, 1, 2], f: [30, 31, 32], fSigma: [1, -1, 1] }, "non-positive-uncertainty"],
+    ["repeated times", { t: [0, 1, 1], f: [30, 31, 32] }, "times-not-increasing"],
+    ["falling frequency", { t: good.t, f: [...good.f].reverse() }, "frequency-not-rising"],
+    ["constant frequency", { t: [0, 1, 2, 3], f: [50, 50, 50, 50] }, "frequency-not-rising"],
+    // Rising overall, but the two dominant high-frequency samples fall: f^(−8/3) then rises with time.
+    ["a non-physical weighted slope", { t: [0, 1, 2, 3, 4], f: [1, 1, 1, 101, 100] }, "non-physical-slope"],
+  ];
+  for (const [name, track, reason] of cases) {
+    it(`rejects ${name}`, () => {
+      expect(fitTimeTrack(track)).toMatchObject({ ok: false, reason });
+    });
+  }
+
+  it("never throws on arbitrary arrays (fast-check)", () => {
+    const value = fc.oneof(fc.double(), fc.constant(0), fc.double({ min: 1, max: 2000, noNaN: true }));
+    fc.assert(
+      fc.property(fc.array(value, { maxLength: 12 }), fc.array(value, { maxLength: 12 }), (t, f) => {
+        const result = fitTimeTrack({ t, f });
+        if (result.ok) {
+          expect(result.value.chirpMassDetectorFrame).toBeGreaterThan(0);
+          expect(Number.isFinite(result.value.chirpMassDetectorFrameSd)).toBe(true);
+        } else {
+          expect(typeof result.reason).toBe("string");
+          expect(result.detail.length).toBeGreaterThan(0);
+        }
+      }),
+      { numRuns: 500 },
+    );
+  });
+});

@@ -1,0 +1,22 @@
+import { describe, expect, it } from "vitest";
+import { neutronStarCompactness, remnantMassFraction } from "@/lib/physics/tidal-disruption";
+
+describe("Foucart, Hinderer & Nissanke 2018 Eq. 4 remnant mass", () => {
+  it("gives the compactness of a 1.4 M☉, 12 km star as GM/(Rc²) ≈ 0.172", () => {
+    // 1.4 × 1476.625 m / 12 000 m, evaluated by hand.
+    expect(neutronStarCompactness(1.4, 12)).toBeCloseTo(0.17227, 4);
+  });
+
+  it("matches a hand evaluation: 6 M☉ hole with χ = 0.9, 1.2 M☉ star of 13 km", () => {
+    // η = 5/36, C = 0.136304, R̂_isco(0.9) = 2.32088:
+    // 0.406 (1 − 2C)/η^(1/3) − 0.139 R̂ C/η + 0.255 = 0.50852; 0.50852^1.761 = 0.30396.
+    expect(remnantMassFraction(6, 1.2, 0.9, 13)).toBeCloseTo(0.30396, 3);
+  });
+
+  it("leaves nothing for a heavy non-spinning hole and more for spin, larger stars and lighter holes", () => {
+    expect(remnantMassFraction(30, 1.4, 0, 12)).toBe(0);
+    expect(remnantMassFraction(7, 1.4, 0.8, 12)).toBeGreaterThan(remnantMassFraction(7, 1.4, 0.2, 12));
+    expect(remnantMassFraction(7, 1.4, 0.8, 14)).toBeGreaterThan(remnantMassFraction(7, 1.4, 0.8, 11));
+    expect(remnantMassFraction(6, 1.4, 0.8, 12)).toBeGreaterThan(remnantMassFraction(9, 1.4, 0.8, 12));
+  });
+});
