@@ -1,0 +1,140 @@
+import { eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { getDb } from "@/db";
+import { events, followUpTasks, sites, taskReports, type Role } from "@/db/schema";
+import { GET as candidateTasksGet, POST as createTasksRoute } from "@/app/api/v1/candidates/[id]/tasks/route";
+import { POST as claimRoute } from "@/app/api/v1/tasks/[id]/claim/route";
+import { POST as reportRoute } from "@/app/api/v1/tasks/[id]/report/route";
+import { GET as listRoute } from "@/app/api/v1/tasks/route";
+import { POST as stateRoute } from "@/app/api/v1/tasks/[id]/state/route";
+import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
+import { callRoute, createCaller, insertCandidate, type Caller } from "./helpers/api";
+
+let testDb: TestDatabase;
+const c = {} as Record<Role | "observer2", Caller>;
+let siteId: string;
+
+beforeAll(async () => {
+  testDb = await setupTestDatabase();
+  for (const role of ["shifter", "observer", "coordinator", "admin"] as const) c[role] = await createCaller(role);
+  c.observer2 = await createCaller("observer", "Second Observer");
+  const db = await getDb();
+  const [site] = await db
+    .insert(sites)
+    .values({ code: "QTR", name: "Quarry Test Range (fictional)", latitudeDeg: -20, longitudeDeg: 30, elevationM: 900, fieldOfViewDeg2: 3 })
+    .returning();
+  siteId = site?.id ?? "";
+});
+afterAll(() => testDb.cleanup());
+
+const draft = (over: Record<string, unknown> = {}) => ({ kind: "galaxy-targeted", siteId, windowStart: "2030-01-01T20:00:00Z", windowEnd: "2030-01-02T04:00:00Z", priority: 1, notes: "bright galaxies first", ...over });
+
+async function openTask(): Promise<string> {
+  const id = await insertCandidate({ triageState: "pursue" });
+  const res = await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft()] } });
+  expect(res.status).toBe(201);
+  return (res.json.tasks as Array<{ id: string }>)[0]?.id ?? "";
+}
+
+const move = (caller: Caller, id: string, body: Record<string, unknown>) => callRoute(stateRoute, { caller, params: { id }, body });
+
+describe("planning follow-up", () => {
+  it("shifters and coordinators create several tasks at once; observers and admins may not", async () => {
+    const id = await insertCandidate({ triageState: "pursue" });
+    const body = { tasks: [draft(), draft({ kind: "spectroscopy", siteId: null, windowStart: "", windowEnd: "" })] };
+    expect((await callRoute(createTasksRoute, { caller: c.observer, params: { id }, body })).status).toBe(403);
+    expect((await callRoute(createTasksRoute, { caller: c.admin, params: { id }, body })).status).toBe(403);
+    const res = await callRoute(createTasksRoute, { caller: c.coordinator, params: { id }, body });
+    expect(res.status).toBe(201);
+    const tasks = res.json.tasks as Array<{ state: string; kind: string; windowStart: string | null }>;
+    expect(tasks.map((t) => [t.kind, t.state])).toEqual([["galaxy-targeted", "open"], ["spectroscopy", "open"]]);
+    expect(tasks[1]?.windowStart).toBeNull();
+    const listed = await callRoute(candidateTasksGet, { caller: c.observer, params: { id } });
+    expect(Object.keys(listed.json)).toHaveLength(2);
+  });
+
+  it("refuses a candidate that is not in Pursue, a backwards window and an unknown site", async () => {
+    const notYet = await insertCandidate({ triageState: "reviewing" });
+    expect((await callRoute(createTasksRoute, { caller: c.shifter, params: { id: notYet }, body: { tasks: [draft()] } })).status).toBe(422);
+    const id = await insertCandidate({ triageState: "pursue" });
+    const backwards = await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft({ windowEnd: "2029-12-31T00:00:00Z" })] } });
+    expect(backwards.status).toBe(422);
+    expect(JSON.stringify(backwards.json.issues)).toContain("tasks.0.windowEnd");
+    expect((await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft({ siteId: "nowhere" })] } })).status).toBe(422);
+    expect((await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [] } })).status).toBe(422);
+  });
+});
+
+describe("a task's life", () => {
+  it("open → claimed → observing → reported, with an audit event for each step", async () => {
+    const id = await openTask();
+    expect((await callRoute(claimRoute, { caller: c.shifter, params: { id }, method: "POST" })).status).toBe(403);
+    expect((await callRoute(claimRoute, { caller: c.observer, params: { id }, method: "POST" })).status).toBe(200);
+    expect((await move(c.observer2, id, { to: "observing" })).status).toBe(403);
+    expect((await move(c.observer, id, { to: "observing" })).status).toBe(200);
+    expect((await callRoute(reportRoute, { caller: c.observer2, params: { id }, body: { result: "nothing new" } })).status).toBe(403);
+    const report = await callRoute(reportRoute, { caller: c.observer, params: { id }, body: { result: "no new source to r = 21.5 mag" } });
+    expect(report.status).toBe(200);
+    const db = await getDb();
+    const [task] = await db.select().from(followUpTasks).where(eq(followUpTasks.id, id));
+    expect(task).toMatchObject({ state: "reported", result: "no new source to r = 21.5 mag" });
+    expect(task?.observingAt).not.toBeNull();
+    const reports = await db.select().from(taskReports).where(eq(taskReports.taskId, id));
+    expect(reports).toHaveLength(1);
+    const log = await db.select().from(events).where(eq(events.taskId, id));
+    expect(log.map((e) => [e.kind, e.fromState, e.toState])).toEqual([
+      ["task.created", null, "open"],
+      ["task.state-changed", "open", "claimed"],
+      ["task.state-changed", "claimed", "observing"],
+      ["task.reported", "observing", "reported"],
+    ]);
+    // Final: nothing moves a reported task.
+    expect((await move(c.coordinator, id, { to: "cancelled", reason: "too late" })).status).toBe(409);
+  });
+
+  it("the claimer or a coordinator releases a claim; others may not", async () => {
+    const id = await openTask();
+    await callRoute(claimRoute, { caller: c.observer, params: { id }, method: "POST" });
+    expect((await move(c.observer2, id, { to: "open" })).status).toBe(403);
+    const released = await move(c.coordinator, id, { to: "open" });
+    expect(released.status).toBe(200);
+    expect(released.json.task).toMatchObject({ state: "open", claimedById: null });
+    expect((await callRoute(claimRoute, { caller: c.observer2, params: { id }, method: "POST" })).status).toBe(200);
+  });
+
+  it("shifters cancel with a reason; observers cannot cancel; a cancelled task cannot be claimed", async () => {
+    const id = await openTask();
+    expect((await move(c.observer, id, { to: "cancelled", reason: "x y z" })).status).toBe(403);
+    expect((await move(c.shifter, id, { to: "cancelled" })).status).toBe(422);
+    expect((await move(c.shifter, id, { to: "cancelled", reason: "region set at the site" })).status).toBe(200);
+    const late = await callRoute(claimRoute, { caller: c.observer, params: { id }, method: "POST" });
+    expect(late.status).toBe(409);
+    expect(late.json.claimedBy).toBeNull();
+    expect((await move(c.shifter, id, { to: "observing" })).status).toBe(403);
+  });
+
+  it("an open task cannot jump to observing; an unknown task is 404", async () => {
+    const id = await openTask();
+    expect((await move(c.coordinator, id, { to: "observing" })).status).toBe(422);
+    expect((await callRoute(claimRoute, { caller: c.observer, params: { id: "nope" }, method: "POST" })).status).toBe(404);
+  });
+});
+
+describe("the follow-up board's filters", () => {
+  it("filters by site, kind, candidate and mine", async () => {
+    const id = await openTask();
+    await callRoute(claimRoute, { caller: c.observer2, params: { id }, method: "POST" });
+    const list = async (query: string, caller = c.observer2) =>
+      (await callRoute(listRoute, { caller, url: `http://localhost/api/v1/tasks?${query}` })).json as unknown as Array<{ id: string; claimedBy: { id: string } | null; kind: string }>;
+    const mine = await list("mine=1");
+    expect(mine.length).toBeGreaterThan(0);
+    expect(mine.every((t) => t.claimedBy?.id === c.observer2.user.id)).toBe(true);
+    expect((await list("kind=spectroscopy")).every((t) => t.kind === "spectroscopy")).toBe(true);
+    expect((await list("site=QTR")).some((t) => t.id === id)).toBe(true);
+    expect(await list("site=NOPE")).toEqual([]);
+    const db = await getDb();
+    const [task] = await db.select().from(followUpTasks).where(eq(followUpTasks.id, id));
+    expect((await list(`candidate=${task?.candidateId}`)).map((t) => t.id)).toEqual([id]);
+    expect((await callRoute(listRoute, { caller: c.observer, url: "http://localhost/api/v1/tasks?kind=bogus" })).status).toBe(422);
+  });
+});
