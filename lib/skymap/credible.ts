@@ -21,7 +21,9 @@ export function credibleArea(
   area: Float64Array | number,
   level: number,
 ): number {
-  const areaOf = typeof area === "number" ? () => area : (i: number) => area[i] ?? 0;
+  const areas = typeof area === "number" ? null : area;
+  const unitArea = typeof area === "number" ? area : 0;
+  const areaOf = (i: number) => (areas ? (areas[i] ?? 0) : unitArea);
   let lo = 0;
   let hi = 0;
   for (let i = 0; i < density.length; i++) if ((density[i] ?? 0) > hi) hi = density[i] ?? 0;
@@ -38,14 +40,16 @@ export function credibleArea(
     const areaBin = new Float64Array(BINS);
     const countBin = new Uint32Array(BINS);
     const scale = BINS / (hi - lo);
-    const binOf = (d: number) => Math.min(BINS - 1, Math.floor((d - lo) * scale));
+    const bottom = lo;
+    const binOf = (d: number) => Math.min(BINS - 1, Math.floor((d - bottom) * scale));
     for (let k = 0; k < count; k++) {
       const i = candidates ? (candidates[k] ?? 0) : k;
       const b = binOf(density[i] ?? 0);
       probBin[b] = (probBin[b] ?? 0) + (probability[i] ?? 0);
-      areaBin[b] = (areaBin[b] ?? 0) + areaOf(i);
       countBin[b] = (countBin[b] ?? 0) + 1;
+      if (areas) areaBin[b] = (areaBin[b] ?? 0) + (areas[i] ?? 0);
     }
+    if (!areas) for (let b = 0; b < BINS; b++) areaBin[b] = (countBin[b] ?? 0) * unitArea;
     let crossing = -1;
     for (let b = BINS - 1; b >= 0; b--) {
       if (takenProb + (probBin[b] ?? 0) >= level) {

@@ -132,11 +132,13 @@ function readElement(view: DataView, at: number, type: string, name: string): nu
       return byte === 0x54 ? 1 : byte === 0x46 ? 0 : Number.NaN; // 'T', 'F', else undefined
     }
     default: {
-      const big = view.getBigInt64(at, false);
-      if (big > BigInt(Number.MAX_SAFE_INTEGER) || big < -BigInt(Number.MAX_SAFE_INTEGER)) {
-        throw new SkymapError("unsupported-column", `column ${name} holds ${big}, beyond ±2^53`);
+      // K: two 32-bit words, no BigInt; exact while |value| < 2^53 (high word within ±2^21)
+      const high = view.getInt32(at, false);
+      const low = view.getUint32(at + 4, false);
+      if (high >= 0x200000 || high < -0x200000) {
+        throw new SkymapError("unsupported-column", `column ${name} holds a 64-bit integer beyond ±2^53`);
       }
-      return Number(big);
+      return high * 4294967296 + low;
     }
   }
 }

@@ -1,0 +1,35 @@
+/** Public surface of the astronomy library: Sun, Moon, sidereal time, altitudes, nights, site visibility. */
+export {
+  airmassToAltitudeDeg,
+  angularSeparationDeg,
+  eclipticToEquatorial,
+  equatorialToHorizontal,
+  precess,
+  type Equatorial,
+} from "./coords";
+export { moonApparent, moonIlluminatedFraction, moonPositionJ2000, type MoonPosition } from "./moon";
+export { comingNight, findCrossings, type Crossing, type Night, type NightOptions } from "./night";
+export {
+  altitudeDeg,
+  altitudeOfDateDeg,
+  moonAltitudeDeg,
+  moonTopocentric,
+  sunAltitudeDeg,
+  type Site,
+  type SiteLocation,
+} from "./site";
+export { sunApparent, sunPositionJ2000, type SunPosition } from "./sun";
+export {
+  dateFromJulianDay,
+  greenwichMeanSiderealTimeDeg,
+  julianDay,
+  julianEphemerisDay,
+  localSiderealTimeDeg,
+} from "./time";
+export {
+  siteVisibility,
+  type ObservingWindow,
+  type SiteVisibility,
+  type SiteVisibilityInput,
+  type WeightedPosition,
+} from "./visibility";
