@@ -96,6 +96,7 @@ async function deliverPush(row: Notification, payload: NotificationPayload, ctx:
   const todo = devices.filter((d) => !already.has(d.id));
   if (devices.length === 0 || (todo.length === 0 && already.size === 0)) return { status: "skipped", reason: "no push device subscribed" };
   const message = JSON.stringify({
+    id: row.id,
     title: row.title,
     body: row.body,
     url: row.url,
