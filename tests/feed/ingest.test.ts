@@ -8,6 +8,7 @@ import { createApiToken } from "@/lib/auth/api-tokens";
 import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
 import { toPhysicsInput } from "@/lib/feed/physics-input";
 import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
+import type * as Hooks from "@/lib/notify/hooks";
 import { computeDerived, defaultPhysicsSettings } from "@/lib/physics";
 import type { FeedCandidate } from "@/lib/validations/feed";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";
@@ -15,7 +16,7 @@ import { feedRequest, rowCounts, samplePayload, setTestEnvironment } from "./sup
 
 // Keep the paging hooks' real bodies but record the calls.
 vi.mock("@/lib/notify/hooks", async (importOriginal) => {
-  const real = await importOriginal<typeof import("@/lib/notify/hooks")>();
+  const real = await importOriginal<typeof Hooks>();
   return { ...real, onCandidateIngested: vi.fn(real.onCandidateIngested), onTasksCancelled: vi.fn(real.onTasksCancelled) };
 });
 
