@@ -15,10 +15,27 @@ import type { PhysicsSettings, TriggerPhysicsInput } from "./index";
 
 type TrackFitOutcome = { fit: FitDiagnostics; plot: FitPlot; chirpMass: ValueWithSd; coalescence: ValueWithSd | null };
 
-/** Runs `body`, turning an unexpected exception into a typed internal-error failure. */
+/** Path of the first non-finite number inside a value, or null when every number is finite. */
+function firstNonFinite(value: unknown, path: string): string | null {
+  if (typeof value === "number") return Number.isFinite(value) ? null : path;
+  if (value === null || typeof value !== "object") return null;
+  for (const [key, inner] of Object.entries(value)) {
+    const found = firstNonFinite(inner, `${path}.${key}`);
+    if (found !== null) return found;
+  }
+  return null;
+}
+
+/**
+ * Runs `body`, turning an unexpected exception into a typed internal-error failure and a result holding NaN or
+ * Infinity (extreme but finite inputs, e.g. a 10⁻³⁰⁰ M☉ mass) into a non-finite failure: JSON has neither.
+ */
 function guarded<T>(body: () => PhysicsResult<T>): PhysicsResult<T> {
   try {
-    return body();
+    const result = body();
+    if (!result.ok) return result;
+    const badPath = firstNonFinite(result.value, "value");
+    return badPath === null ? result : fail("non-finite-result", `${badPath} is not finite for these inputs`);
   } catch (error) {
     return fail("internal-error", error instanceof Error ? error.message : String(error));
   }

@@ -18,6 +18,7 @@ export type PhysicsFailureCode =
   | "invalid-settings"
   | "sampling-exhausted"
   | "spin-outside-fit"
+  | "non-finite-result"
   | "internal-error";
 
 export interface PhysicsFailure {
