@@ -1,7 +1,7 @@
-import { credibleArea } from "./credible";
+import { credibleAreas } from "./credible";
 import { SkymapError } from "./errors";
 import type { ReadFitsOptions } from "./fits";
-import { pix2vec_nest, pix2vec_ring, pixelAreaSr, SR_TO_DEG2, vecToRaDec } from "./healpix";
+import { nestCentreVec, pix2vec_nest, pix2vec_ring, pixelAreaSr, SR_TO_DEG2, vecToRaDec } from "./healpix";
 import { loadSkymap } from "./load";
 import type { SkymapMap, SkymapSummary, SkyPosition } from "./types";
 
@@ -17,12 +17,13 @@ export type AnalyseResult =
 export function analyseSkymap(bytes: Uint8Array, options: ReadFitsOptions = {}): AnalyseResult {
   try {
     const { map, totalProbability, normalised, warnings } = loadSkymap(bytes, options);
+    const [area50Deg2 = 0, area90Deg2 = 0] = credibleAreasDeg2(map, [0.5, 0.9]);
     const summary: SkymapSummary = {
       totalProbability,
       normalised,
       warnings,
-      area50Deg2: credibleAreaDeg2(map, 0.5),
-      area90Deg2: credibleAreaDeg2(map, 0.9),
+      area50Deg2,
+      area90Deg2,
       peak: peakPosition(map),
       layout: map.layout,
       ...(map.layout === "multiorder" ? { maxOrder: map.maxOrder } : { nside: map.nside }),
@@ -35,15 +36,20 @@ export function analyseSkymap(bytes: Uint8Array, options: ReadFitsOptions = {}):
   }
 }
 
-/** Area of the greedy credible region at `level` (e.g. 0.9), in square degrees. */
-export function credibleAreaDeg2(map: SkymapMap, level: number): number {
+/** Areas of the greedy credible regions at the given levels (e.g. [0.5, 0.9]), in square degrees. */
+export function credibleAreasDeg2(map: SkymapMap, levels: readonly number[]): number[] {
   if (map.layout === "multiorder") {
     const area = new Float64Array(map.order.length);
     for (let i = 0; i < area.length; i++) area[i] = pixelAreaSr(map.order[i] ?? 0);
-    return credibleArea(map.densityPerSr, map.probability, area, level) * SR_TO_DEG2;
+    return credibleAreas(map.densityPerSr, map.probability, area, levels).map((sr) => sr * SR_TO_DEG2);
   }
   // equal-area pixels: probability ranks them as density would
-  return credibleArea(map.probability, map.probability, pixelAreaSr(map.order), level) * SR_TO_DEG2;
+  return credibleAreas(map.probability, map.probability, pixelAreaSr(map.order), levels).map((sr) => sr * SR_TO_DEG2);
+}
+
+/** Area of the greedy credible region at one level, in square degrees. */
+export function credibleAreaDeg2(map: SkymapMap, level: number): number {
+  return credibleAreasDeg2(map, [level])[0] ?? 0;
 }
 
 /** Centre of the highest-density pixel (the first one on ties). */
@@ -51,10 +57,7 @@ export function peakPosition(map: SkymapMap): SkyPosition {
   const ranked = map.layout === "multiorder" ? map.densityPerSr : map.probability;
   let best = 0;
   for (let i = 1; i < ranked.length; i++) if ((ranked[i] ?? 0) > (ranked[best] ?? 0)) best = i;
-  if (map.layout === "multiorder") {
-    const c = map.centres;
-    return vecToRaDec([c[3 * best] ?? 0, c[3 * best + 1] ?? 0, c[3 * best + 2] ?? 1]);
-  }
+  if (map.layout === "multiorder") return vecToRaDec(nestCentreVec(map.order[best] ?? 0, map.ipix[best] ?? 0));
   const vec = map.layout === "flat-ring" ? pix2vec_ring(map.nside, best) : pix2vec_nest(map.nside, best);
   return vecToRaDec(vec);
 }

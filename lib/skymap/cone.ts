@@ -1,6 +1,7 @@
 import { SkymapError } from "./errors";
 import { forEachPixelInDisc } from "./disc";
 import { raDecToVec, ringToNest, type V3 } from "./healpix";
+import { multiOrderCentres } from "./multiorder";
 import type { FlatSkymap, MultiOrderSkymap, SkymapMap } from "./types";
 
 /**
@@ -30,7 +31,8 @@ function total(values: Float64Array): number {
 function multiOrderCone(map: MultiOrderSkymap, centre: V3, radius: number): number {
   const cosRadius = Math.cos(radius);
   const [cx, cy, cz] = centre;
-  const { centres, probability } = map;
+  const centres = multiOrderCentres(map);
+  const { probability } = map;
   let sum = 0;
   for (let i = 0; i < probability.length; i++) {
     const dot = (centres[3 * i] ?? 0) * cx + (centres[3 * i + 1] ?? 0) * cy + (centres[3 * i + 2] ?? 0) * cz;

@@ -102,6 +102,10 @@ export function readNumericColumn(file: FitsFile, table: BinTable, column: BinTa
   const out = new Float64Array(rows * repeat);
   const scaled = scale !== 1 || zero !== 0;
   const checkNull = nullValue !== undefined && type !== "E" && type !== "D";
+  if ((type === "E" || type === "D") && !scaled) {
+    readFloats(view, out, rows, rowBytes, column.offsetBytes, repeat, type === "D");
+    return out;
+  }
   let k = 0;
   for (let row = 0; row < rows; row++) {
     let at = row * rowBytes + column.offsetBytes;
@@ -113,6 +117,19 @@ export function readNumericColumn(file: FitsFile, table: BinTable, column: BinTa
     }
   }
   return out;
+}
+
+/** The hot path for probability columns: plain big-endian floats, one tight loop per width. */
+function readFloats(view: DataView, out: Float64Array, rows: number, rowBytes: number, offset: number, repeat: number, double: boolean): void {
+  let k = 0;
+  for (let row = 0; row < rows; row++) {
+    let at = row * rowBytes + offset;
+    if (double) {
+      for (let e = 0; e < repeat; e++, at += 8) out[k++] = view.getFloat64(at, false);
+    } else {
+      for (let e = 0; e < repeat; e++, at += 4) out[k++] = view.getFloat32(at, false);
+    }
+  }
 }
 
 function readElement(view: DataView, at: number, type: string, name: string): number {

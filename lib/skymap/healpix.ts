@@ -11,7 +11,6 @@ export { nest2ring, pix2vec_nest, pix2vec_ring, type V3 };
 
 /** Finest order accepted: NUNIQ values stay below 2^53 (exact doubles) up to here. */
 export const MAX_ORDER = 24;
-const TWO_32 = 4294967296;
 
 export function nside2npix(nside: number): number {
   return 12 * nside * nside;
@@ -45,16 +44,16 @@ export function vecToRaDec(v: V3): { raDeg: number; decDeg: number } {
   return { raDeg, decDeg };
 }
 
+const TWO_POW_32 = 4294967296;
+
 /**
  * NUNIQ scheme: uniq = 4 · 4^order + ipix (HEALPix primer; Górski et al. 2005), so
- * order = ⌊log2(uniq / 4) / 2⌋. Returns undefined for values that are not a valid uniq ≤ MAX_ORDER.
+ * order = ⌊(⌊log2 uniq⌋ − 2) / 2⌋. Returns undefined for values that are not a valid uniq ≤ MAX_ORDER.
  */
 export function decodeUniq(uniq: number): { order: number; ipix: number } | undefined {
   if (!Number.isSafeInteger(uniq) || uniq < 4) return undefined;
-  let order = Math.floor(Math.log2(uniq / 4) / 2);
-  // guard the float log against rounding at the boundaries
-  while (order > 0 && 4 * 4 ** order > uniq) order--;
-  while (4 * 4 ** (order + 1) <= uniq) order++;
+  const log2 = uniq < TWO_POW_32 ? 31 - Math.clz32(uniq) : 63 - Math.clz32(Math.floor(uniq / TWO_POW_32));
+  const order = (log2 - 2) >> 1;
   if (order > MAX_ORDER) return undefined;
   return { order, ipix: uniq - 4 * 4 ** order };
 }
@@ -132,8 +131,8 @@ export function nestCentreVec(order: number, ipix: number): V3 {
   const perFace = nside * nside;
   const face = Math.floor(ipix / perFace);
   const k = ipix - face * perFace;
-  const lo = k % TWO_32;
-  const hi = Math.floor(k / TWO_32);
+  const lo = k % TWO_POW_32;
+  const hi = Math.floor(k / TWO_POW_32);
   const x = compactBits32(lo) + compactBits32(hi) * 65536;
   const y = compactBits32(lo >>> 1) + compactBits32(hi >>> 1) * 65536;
   const { t, u } = fxy2tu(nside, face, x, y);

@@ -1,5 +1,6 @@
 /** Public surface of the sky-map library: pure functions over bytes and typed arrays. */
-export { analyseSkymap, credibleAreaDeg2, peakPosition, type AnalyseResult } from "./analyse";
+export { analyseSkymap, credibleAreaDeg2, credibleAreasDeg2, peakPosition, type AnalyseResult } from "./analyse";
+export { SkymapCache } from "./cache";
 export { coneProbability } from "./cone";
 export {
   decodeDisplayGrid,

@@ -42,14 +42,7 @@ export function buildMultiOrder(
   }
   const { total, normalised } = normalise(probability, warnings, densityPerSr);
 
-  const centres = new Float64Array(3 * count);
-  for (let i = 0; i < count; i++) {
-    const [x, y, z] = nestCentreVec(order[i] ?? 0, ipix[i] ?? 0);
-    centres[3 * i] = x;
-    centres[3 * i + 1] = y;
-    centres[3 * i + 2] = z;
-  }
-  const map: MultiOrderSkymap = { layout: "multiorder", maxOrder, order, ipix, probability, densityPerSr, centres };
+  const map: MultiOrderSkymap = { layout: "multiorder", maxOrder, order, ipix, probability, densityPerSr };
   return { map, totalProbability: total, normalised };
 }
 
@@ -78,4 +71,24 @@ function checkDisjoint(order: Uint8Array, ipix: Float64Array, maxOrder: number, 
   }
   const fraction = covered / (12 * 4 ** maxOrder);
   if (fraction < 1 - 1e-12) warnings.push(`multi-order pixels cover only ${(100 * fraction).toFixed(2)} % of the sky`);
+}
+
+const centreCache = new WeakMap<MultiOrderSkymap, Float64Array>();
+
+/**
+ * Pixel-centre unit vectors, x y z interleaved (length 3 × pixelCount), computed on first use and kept
+ * for the map's lifetime, so an upload that only needs the summary does not pay for them.
+ */
+export function multiOrderCentres(map: MultiOrderSkymap): Float64Array {
+  const cached = centreCache.get(map);
+  if (cached) return cached;
+  const centres = new Float64Array(3 * map.order.length);
+  for (let i = 0; i < map.order.length; i++) {
+    const [x, y, z] = nestCentreVec(map.order[i] ?? 0, map.ipix[i] ?? 0);
+    centres[3 * i] = x;
+    centres[3 * i + 1] = y;
+    centres[3 * i + 2] = z;
+  }
+  centreCache.set(map, centres);
+  return centres;
 }

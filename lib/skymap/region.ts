@@ -7,7 +7,7 @@ export interface RegionPointsOptions {
   level?: number;
   /** Upper bound on the number of points; the grid is coarsened until the region fits. */
   maxPoints?: number;
-  /** Finest grid tried (power of two ≤ 256); 128 by default (pixels of about 0.46°). */
+  /** Finest grid tried (power of two ≤ 256); 64 by default (pixels of about 0.92°). */
   nside?: number;
 }
 
@@ -18,7 +18,7 @@ export interface RegionPointsOptions {
 export function credibleRegionPoints(source: SkymapMap | DisplayGrid, options: RegionPointsOptions = {}): RegionPoint[] {
   const level = options.level ?? 0.9;
   const maxPoints = options.maxPoints ?? 4096;
-  let grid = "credibleLevel" in source ? source : toDisplayGrid(source, options.nside ?? 128);
+  let grid = "credibleLevel" in source ? source : toDisplayGrid(source, options.nside ?? 64);
   for (;;) {
     const inside = regionPixels(grid, level);
     if (inside.length <= maxPoints || grid.nside === 1) {

@@ -20,8 +20,6 @@ export interface MultiOrderSkymap {
   probability: Float64Array;
   /** Probability per steradian, with the same normalisation. */
   densityPerSr: Float64Array;
-  /** Pixel-centre unit vectors, x y z interleaved (length 3 × pixelCount). */
-  centres: Float64Array;
 }
 
 export type SkymapMap = FlatSkymap | MultiOrderSkymap;

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { credibleArea, credibleLevels } from "@/lib/skymap/credible";
+import { credibleArea, credibleAreas, credibleLevels } from "@/lib/skymap/credible";
 
 /** The textbook definition (common practice): stable sort by density, take until the level is reached. */
 function bySorting(density: number[], probability: number[], area: number[], level: number): number {
@@ -32,8 +32,13 @@ function check(list: Array<{ density: number; area: number }>, level: number) {
   fc.pre(total > 0);
   const probability = rawProb.map((p) => p / total);
   const area = list.map((p) => p.area);
-  const got = credibleArea(new Float64Array(density), new Float64Array(probability), new Float64Array(area), level);
+  const arrays = [new Float64Array(density), new Float64Array(probability), new Float64Array(area)] as const;
+  const got = credibleArea(...arrays, level);
   expect(got).toBeCloseTo(bySorting(density, probability, area, level), 9);
+  // several levels share the first histogram pass
+  const both = credibleAreas(...arrays, [level, 0.5]);
+  expect(both[0]).toBe(got);
+  expect(both[1]).toBeCloseTo(bySorting(density, probability, area, 0.5), 9);
 }
 
 describe("credibleArea equals the full-sort definition", () => {

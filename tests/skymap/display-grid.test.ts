@@ -7,6 +7,7 @@ import {
   degradeDisplayGrid,
   displayGridToMap,
   encodeDisplayGrid,
+  SkymapCache,
   type SkymapMap,
   toDisplayGrid,
 } from "@/lib/skymap";
@@ -88,7 +89,7 @@ describe("credibleRegionPoints", () => {
   const map = load("bimodal-ring-n128.fits.gz");
 
   it("samples the 90 % region: at least 0.9 of the probability, at most one pixel more", () => {
-    const points = credibleRegionPoints(map, { maxPoints: 10_000 });
+    const points = credibleRegionPoints(map, { maxPoints: 10_000, nside: 128 });
     const held = points.reduce((sum, p) => sum + p.prob, 0);
     const largest = Math.max(...points.map((p) => p.prob));
     expect(held).toBeGreaterThanOrEqual(0.9);
@@ -115,3 +116,25 @@ describe("credibleRegionPoints", () => {
   });
 });
 
+
+describe("SkymapCache", () => {
+  it("loads once per key and evicts the least recently used map past its byte budget", () => {
+    const map = load("bimodal-nested-n64.fits.gz"); // 49 152 doubles = 393 216 bytes
+    const cache = new SkymapCache(2 * 393_216);
+    let loads = 0;
+    const loader = () => {
+      loads++;
+      return map;
+    };
+    cache.get("a", loader);
+    cache.get("b", loader);
+    cache.get("a", loader); // a is now the most recent
+    expect(loads).toBe(2);
+    cache.get("c", loader); // over budget: b goes
+    expect(cache.size).toBe(2);
+    cache.get("a", loader);
+    expect(loads).toBe(3);
+    cache.get("b", loader);
+    expect(loads).toBe(4);
+  });
+});
