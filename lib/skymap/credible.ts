@@ -9,7 +9,7 @@
  */
 
 const BINS = 4096;
-const SORT_BELOW = 4096;
+const SORT_BELOW = 256; // few enough to sort with a comparator
 
 interface Histogram {
   lo: number;

@@ -19,11 +19,12 @@ export function buildMultiOrder(
   const ipix = new Float64Array(count);
   let maxOrder = 0;
   for (let i = 0; i < count; i++) {
-    const decoded = decodeUniq(uniq[i] ?? -1);
+    const value = uniq[i] ?? -1;
+    const decoded = decodeUniq(value);
     if (!decoded) {
       throw new SkymapError(
         "bad-uniq",
-        `UNIQ value ${uniq[i]} in row ${i + 1} is not a NUNIQ index (4·4^order + ipix, order ≤ 24)`,
+        `UNIQ value ${value} in row ${i + 1} is not a NUNIQ index (4·4^order + ipix, order ≤ 24)`,
       );
     }
     order[i] = decoded.order;
