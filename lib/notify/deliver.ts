@@ -31,7 +31,7 @@ export function muteReason(
   now: Date,
 ): string | null {
   const channel = row.channel === "push" ? "push" : "email";
-  const switches = pageKinds.has(row.kind) ? prefs : prefs.taskChannels;
+  const switches = row.kind.startsWith("task-") ? prefs.taskChannels : prefs;
   if (!switches[channel]) return `${channel} switched off in preferences`;
   if (prefs.quietStart && prefs.quietEnd && isWithinLocalWindow(now, timeZone, prefs.quietStart, prefs.quietEnd)) {
     return `quiet hours ${prefs.quietStart}–${prefs.quietEnd} ${timeZone}`;

@@ -9,7 +9,7 @@ import { candidateTextFor, type CandidateSummary } from "./content";
 import { candidatePath } from "./links";
 import { queueNotifications } from "./outbox";
 import { planPaging } from "./policy";
-import { resolveTarget, targetRoleLabel, type Recipient } from "./recipients";
+import { coordinators, resolveTarget, targetRoleLabel, type Recipient } from "./recipients";
 
 export interface NewCandidateInfo {
   candidateId: string;
@@ -44,6 +44,7 @@ export async function pageNewCandidate(tx: Tx, info: NewCandidateInfo, now: Date
   if (plan.action === "in-app-only") {
     const everyone: Recipient[] = [];
     for (const step of plan.steps) everyone.push(...(await resolveTarget(tx, step.target, shift)));
+    if (everyone.length === 0) everyone.push(...(await coordinators(tx)));
     const userIds = everyone.map((r) => r.id);
     const text = candidateTextFor(candidate, { kind: "notice", reason: plan.reason });
     await queueNotifications(tx, { eventId: info.eventId, kind: "notice", ...text, path, candidateId: info.candidateId, channels: [], now }, userIds);
@@ -64,8 +65,10 @@ export async function pageNewCandidate(tx: Tx, info: NewCandidateInfo, now: Date
     recipients = await resolveTarget(tx, step.target, shift);
     if (recipients.length > 0) break;
   }
-  const firstStep = plan.steps[first];
-  if (firstStep) {
+  // Nobody the policy names can be reached (no shift covers the receipt): the coordinators, at once.
+  const firstStep = plan.steps[first] ?? { step: plan.steps.length, target: "coordinators" as const, dueAt: info.receivedAt };
+  if (recipients.length === 0) recipients = await coordinators(tx);
+  if (recipients.length > 0) {
     const text = candidateTextFor(candidate, { kind: "page", role: targetRoleLabel[firstStep.target] });
     const userIds = recipients.map((r) => r.id);
     await queueNotifications(

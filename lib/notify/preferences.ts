@@ -1,6 +1,12 @@
-import { eq, inArray } from "drizzle-orm";
-import { notificationPreferences, siteObservers, type PagingPreferences } from "@/db/schema";
+import { asc, eq, inArray } from "drizzle-orm";
+import { getDb } from "@/db";
+import { notificationPreferences, siteObservers, sites, type PagingPreferences } from "@/db/schema";
+import { ApiError } from "@/lib/api/errors";
+import type { SessionUser } from "@/lib/auth/roles";
 import type { Tx } from "@/lib/data/events";
+import { onCallPrimaryUntil } from "@/lib/data/rota";
+import { withWriteLock } from "@/lib/feed/write-lock";
+import type { PreferencesInput } from "@/lib/validations/paging";
 
 export const defaultPreferences = (taskSiteIds: string[] = []): PagingPreferences => ({
   push: true,
@@ -27,4 +33,47 @@ export async function readPreferencesMany(q: Tx, userIds: string[]): Promise<Map
   for (const row of rows) out.set(row.userId, { ...defaultPreferences(), ...row.preferences });
   for (const id of userIds) if (!out.has(id)) out.set(id, defaultPreferences());
   return out;
+}
+
+export interface PreferencesView {
+  preferences: PagingPreferences;
+  /** ISO end of the person's current shift as on-call primary, or null */
+  onCallUntil: string | null;
+  timeZone: string;
+  sites: Array<{ id: string; code: string; name: string }>;
+}
+
+export async function getPreferencesView(user: SessionUser, now = new Date()): Promise<PreferencesView> {
+  const db = await getDb();
+  const until = await onCallPrimaryUntil(db, user.id, now);
+  const allSites = await db.select({ id: sites.id, code: sites.code, name: sites.name }).from(sites).orderBy(asc(sites.code));
+  return { preferences: await readPreferences(db, user.id), onCallUntil: until?.toISOString() ?? null, timeZone: user.timeZone, sites: allSites };
+}
+
+/**
+ * Saves a person's switches. The on-call primary may not switch off both outside channels during their shift
+ * (delivery ignores their quiet hours and switches for pages then anyway; refusing here says so at once).
+ */
+export async function savePreferences(user: SessionUser, input: PreferencesInput, now = new Date()): Promise<PreferencesView> {
+  const db = await getDb();
+  const until = await onCallPrimaryUntil(db, user.id, now);
+  if (until && !input.push && !input.email) {
+    throw new ApiError(422, `you are the on-call primary until ${until.toISOString()}; pages cannot be muted during your shift`, {
+      issues: [{ path: "email", message: "keep push or e-mail on while you are on call" }],
+      onCallUntil: until.toISOString(),
+    });
+  }
+  const known = new Set((await db.select({ id: sites.id }).from(sites)).map((s) => s.id));
+  const unknown = input.taskSiteIds.filter((id) => !known.has(id));
+  if (unknown.length > 0) {
+    throw new ApiError(422, `unknown site ${unknown[0]}`, { issues: [{ path: "taskSiteIds", message: "unknown site" }] });
+  }
+  const preferences: PagingPreferences = { ...input, taskSiteIds: [...new Set(input.taskSiteIds)] };
+  await withWriteLock(() =>
+    db
+      .insert(notificationPreferences)
+      .values({ userId: user.id, preferences, updatedAt: now })
+      .onConflictDoUpdate({ target: notificationPreferences.userId, set: { preferences, updatedAt: now } }),
+  );
+  return getPreferencesView(user, now);
 }
