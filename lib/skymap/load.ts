@@ -13,6 +13,8 @@ export interface LoadedSkymap {
   warnings: string[];
 }
 
+/** 805 M pixels; ringToNest's bit interleaving also stops at 2^15. Larger flat maps should be multi-order. */
+const MAX_FLAT_NSIDE = 8192;
 const CELESTIAL = new Set(["C", "Q", "CELESTIAL", "EQUATORIAL"]);
 
 /**
@@ -79,14 +81,14 @@ function flatNside(table: BinTable, header: FitsHeader, count: number, name: str
   const declared = header.get("NSIDE");
   if (declared === undefined) {
     const inferred = Math.round(Math.sqrt(count / 12));
-    if (nside2npix(inferred) !== count || nsideToOrder(inferred) === undefined) {
+    if (nside2npix(inferred) !== count || nsideToOrder(inferred) === undefined || inferred > MAX_FLAT_NSIDE) {
       throw new SkymapError("bad-nside", `NSIDE missing and ${count} pixels is not 12 × nside² for a power-of-two nside`);
     }
     warnings.push(`NSIDE missing; inferred ${inferred} from ${count} pixels`);
     return inferred;
   }
-  if (typeof declared !== "number" || nsideToOrder(declared) === undefined) {
-    throw new SkymapError("bad-nside", `NSIDE must be a power of two from 1 to 2^24, got ${String(declared)}`);
+  if (typeof declared !== "number" || nsideToOrder(declared) === undefined || declared > MAX_FLAT_NSIDE) {
+    throw new SkymapError("bad-nside", `NSIDE must be a power of two from 1 to ${MAX_FLAT_NSIDE}, got ${String(declared)}`);
   }
   if (nside2npix(declared) !== count) {
     throw new SkymapError(

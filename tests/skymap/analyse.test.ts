@@ -125,3 +125,26 @@ describe("cone edge cases", () => {
     expect(() => coneProbability(map, 0, 0, -1)).toThrowError(expect.objectContaining({ code: "bad-query" }));
   });
 });
+
+describe("unusual but valid files (tests/fixtures/skymap/variants)", () => {
+  it("infers NSIDE from the pixel count when the keyword is missing", () => {
+    const { summary } = analyse("variants/no-nside.fits");
+    const good = analyse("malformed/good-n16.fits").summary;
+    expect(summary.warnings).toContain("NSIDE missing; inferred 16 from 3072 pixels");
+    expect(summary.area90Deg2).toBe(good.area90Deg2);
+  });
+
+  it("assumes equatorial coordinates, with a warning, when COORDSYS is missing", () => {
+    expect(analyse("variants/no-coordsys.fits").summary.warnings).toContain("COORDSYS missing; assumed equatorial (C)");
+  });
+
+  it("reads a multi-order map with PROB per pixel like the same map with PROBDENSITY", () => {
+    const byProb = analyse("variants/multiorder-prob.fits.gz");
+    const byDensity = analyse("bimodal-multiorder.fits.gz");
+    expect(byProb.summary.warnings).toContain("no PROBDENSITY column; PROB read as probability per pixel");
+    expect(relativeDifference(byProb.summary.area50Deg2, byDensity.summary.area50Deg2)).toBeLessThan(1e-9);
+    expect(relativeDifference(byProb.summary.area90Deg2, byDensity.summary.area90Deg2)).toBeLessThan(1e-9);
+    expect(separationDeg(byProb.summary.peak, byDensity.summary.peak)).toBeLessThan(1e-9);
+    expect(coneProbability(byProb.map, 123.4, -35, 5)).toBeCloseTo(coneProbability(byDensity.map, 123.4, -35, 5), 12);
+  });
+});

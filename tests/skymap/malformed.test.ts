@@ -26,6 +26,7 @@ describe("malformed files give typed errors naming the problem", () => {
     ["bad-ordering.fits", "bad-ordering", /^ORDERING must be RING, NESTED or NUNIQ, got SPIRAL$/],
     ["nside-mismatch.fits", "bad-nside", /NSIDE 32 implies 12288 pixels but column PROB holds 3072/],
     ["galactic.fits", "unsupported-layout", /COORDSYS G is not supported/],
+    ["explicit-partial.fits", "unsupported-layout", /partial-sky flat maps \(INDXSCHM EXPLICIT\)/],
     ["all-zero.fits", "zero-total", /probabilities sum to zero/],
     ["multiorder-overlap.fits", "bad-uniq", /pixels overlap/],
   ])("%s → %s", (name, code, message) => expectError(bad(name), code, message));
