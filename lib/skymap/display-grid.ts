@@ -28,11 +28,19 @@ export function toDisplayGrid(map: SkymapMap, nside = 64): DisplayGrid {
     for (let i = 0; i < map.probability.length; i++) {
       addPixel(grid, gridOrder, map.order[i] ?? 0, map.ipix[i] ?? 0, map.probability[i] ?? 0);
     }
+  } else if (map.order >= gridOrder) {
+    // the common case, millions of pixels: one division per pixel, no calls
+    const ring = map.layout === "flat-ring";
+    const span = 4 ** (map.order - gridOrder);
+    const { probability, nside: mapNside } = map;
+    for (let i = 0; i < probability.length; i++) {
+      const parent = Math.floor((ring ? ringToNest(mapNside, i) : i) / span);
+      grid[parent] = (grid[parent] ?? 0) + (probability[i] ?? 0);
+    }
   } else {
     const ring = map.layout === "flat-ring";
     for (let i = 0; i < map.probability.length; i++) {
-      const nest = ring ? ringToNest(map.nside, i) : i;
-      addPixel(grid, gridOrder, map.order, nest, map.probability[i] ?? 0);
+      addPixel(grid, gridOrder, map.order, ring ? ringToNest(map.nside, i) : i, map.probability[i] ?? 0);
     }
   }
   return withLevels(nside, grid);
