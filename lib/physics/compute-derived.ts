@@ -60,7 +60,6 @@ function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): Phy
     const fit = result.value;
     const range = frequencyRange(track.f);
     const warnings: string[] = [];
-    if (fit.samplesAfterCoalescence > 0) warnings.push(`${fit.samplesAfterCoalescence} samples at or after the fitted coalescence time`);
     if (fit.reducedChiSquare !== null && fit.reducedChiSquare > 3) {
       warnings.push(`residuals exceed the quoted uncertainties (χ²/dof = ${fit.reducedChiSquare.toFixed(2)}); errors scaled up`);
     }
@@ -75,7 +74,6 @@ function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): Phy
         weighting: fit.weighting,
         frequencyMinHz: range.min,
         frequencyMaxHz: range.max,
-        samplesAfterCoalescence: fit.samplesAfterCoalescence,
         warnings,
       },
       plot: timeTrackPlot(fit, track.t, track.f),
@@ -103,7 +101,6 @@ function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): Phy
       weighting: fit.weighting,
       frequencyMinHz: range.min,
       frequencyMaxHz: range.max,
-      samplesAfterCoalescence: 0,
       warnings,
     },
     plot: derivativeTrackPlot(fit, track.f, track.dfdt),

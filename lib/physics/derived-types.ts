@@ -28,8 +28,6 @@ export interface FitDiagnostics {
   weighting: string;
   frequencyMinHz: number;
   frequencyMaxHz: number;
-  /** Samples at or after the fitted coalescence time (time tracks only; their residual is undefined). */
-  samplesAfterCoalescence: number;
   warnings: string[];
 }
 

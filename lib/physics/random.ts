@@ -42,7 +42,9 @@ export class SeededRandom {
   private s1: number;
   private s2: number;
   private s3: number;
-  private spareNormal: number | null = null;
+  // A plain number plus a flag (not number | null) keeps the field an unboxed double in V8's hot loop.
+  private spareNormal = 0;
+  private hasSpare = false;
 
   /** A string seed is hashed; four explicit 32-bit words (not all zero) set the state directly. */
   constructor(seed: string | readonly [number, number, number, number]) {
@@ -72,14 +74,14 @@ export class SeededRandom {
 
   /** Standard normal deviate, Box & Muller 1958 (both outputs of each pair are used). */
   normal(): number {
-    if (this.spareNormal !== null) {
-      const spare = this.spareNormal;
-      this.spareNormal = null;
-      return spare;
+    if (this.hasSpare) {
+      this.hasSpare = false;
+      return this.spareNormal;
     }
     const radius = Math.sqrt(-2 * Math.log(this.uniform()));
     const angle = 2 * Math.PI * this.uniform();
     this.spareNormal = radius * Math.sin(angle);
+    this.hasSpare = true;
     return radius * Math.cos(angle);
   }
 }

@@ -76,9 +76,10 @@ export function computeSourceClasses(
     return fail("invalid-mass", "each mass needs a finite mean > 0 and a finite sd ≥ 0");
   }
   if (!(Math.abs(input.chi1) <= 1) || !(Math.abs(input.chi2) <= 1)) return fail("invalid-spin", "spins must lie in [−1, 1]");
-  const table = planck18DistanceTable();
   const distance = input.distanceMpc;
-  if (distance !== null) {
+  // Built on first use only (a few ms), so distance-free callers never pay for it.
+  const table = distance === null ? null : planck18DistanceTable();
+  if (distance !== null && table !== null) {
     if (!isGaussian(distance)) return fail("invalid-distance", "distance needs a finite mean > 0 and a finite sd ≥ 0");
     if (distance.mean > table.maxLuminosityDistanceMpc) {
       return fail("distance-out-of-range", `mean distance beyond ${Math.round(table.maxLuminosityDistanceMpc)} Mpc (z > ${table.maxRedshift})`);
@@ -109,7 +110,7 @@ export function computeSourceClasses(
   for (let i = 0; i < sampleCount; i++) {
     const m1 = drawPositive(input.mass1DetectorFrame, Infinity);
     const m2 = drawPositive(input.mass2DetectorFrame, Infinity);
-    const z = distance === null ? 0 : table.redshift(drawPositive(distance, table.maxLuminosityDistanceMpc));
+    const z = distance === null || table === null ? 0 : table.redshift(drawPositive(distance, table.maxLuminosityDistanceMpc));
     if (Number.isNaN(m1) || Number.isNaN(m2) || Number.isNaN(z)) {
       return fail("sampling-exhausted", "too many rejected draws (distribution mostly outside the allowed range)");
     }
