@@ -1,6 +1,8 @@
 "use client";
 
-/** Header status area: the live-connection indicator and the notification bell mount here. */
+import { LiveIndicator } from "@/components/live/live-indicator";
+
+/** Header status area: the live-connection indicator (boards) and the notification bell (paging) mount here. */
 export function StatusSlot() {
-  return null;
+  return <LiveIndicator />;
 }

@@ -1,9 +1,8 @@
 /** Rounds to `digits` significant figures (a number, not a string). */
 export function roundSignificant(value: number, digits: number): number {
   if (value === 0 || !Number.isFinite(value)) return value;
-  const magnitude = Math.floor(Math.log10(Math.abs(value)));
-  const factor = 10 ** (digits - 1 - magnitude);
-  return Math.round(value * factor) / factor;
+  // toPrecision is correctly rounded by the spec; scaling by 10 ** -k is not, and differed between server and browser.
+  return Number(value.toPrecision(digits));
 }
 
 /** Plain decimal with comma grouping and no exponent, e.g. 33000 → "33,000", 1.5 → "1.5". */

@@ -1,18 +1,55 @@
-import { TZDate } from "@date-fns/tz";
-import { format } from "date-fns";
+/**
+ * Times for people: stored UTC instants shown in the viewer's zone with the zone named, ISO UTC for hovers.
+ * Built on Intl (no date library) so the board's first-load script stays small.
+ */
+const formatters = new Map<string, Intl.DateTimeFormat>();
 
-/** A UTC instant in the viewer's zone with the zone named: "2025-03-01 15:03:12 GMT+1". */
-export function formatInZone(instant: Date | number | string, timeZone: string, pattern = "yyyy-MM-dd HH:mm:ss"): string {
-  const date = new Date(instant);
-  if (Number.isNaN(date.getTime())) return "—";
-  const zone = safeZone(timeZone);
-  const zoned = new TZDate(date.getTime(), zone);
-  return `${format(zoned, pattern)} ${zoneLabel(zoned, zone)}`;
+function formatterFor(timeZone: string, withSeconds: boolean): Intl.DateTimeFormat {
+  const key = `${timeZone}|${withSeconds}`;
+  let formatter = formatters.get(key);
+  if (!formatter) {
+    formatter = new Intl.DateTimeFormat("en-US", {
+      timeZone,
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      ...(withSeconds ? { second: "2-digit" } : {}),
+      hourCycle: "h23",
+      timeZoneName: "short",
+    });
+    formatters.set(key, formatter);
+  }
+  return formatter;
 }
 
-/** Short clock time in the viewer's zone: "15:03 GMT+1". */
-export function formatClock(instant: Date | number | string, timeZone: string): string {
-  return formatInZone(instant, timeZone, "HH:mm");
+interface ZonedParts {
+  date: string;
+  time: string;
+  zone: string;
+}
+
+function zonedParts(instant: Date | number | string, timeZone: string, withSeconds: boolean): ZonedParts | null {
+  const date = new Date(instant);
+  if (Number.isNaN(date.getTime())) return null;
+  const zone = safeZone(timeZone);
+  const parts = Object.fromEntries(formatterFor(zone, withSeconds).formatToParts(date).map((p) => [p.type, p.value]));
+  const time = withSeconds ? `${parts.hour}:${parts.minute}:${parts.second}` : `${parts.hour}:${parts.minute}`;
+  return { date: `${parts.year}-${parts.month}-${parts.day}`, time, zone: zoneLabel(zone, parts.timeZoneName ?? "") };
+}
+
+/** "2025-03-01 15:03:12 GMT+1" in the viewer's zone. */
+export function formatInZone(instant: Date | number | string, timeZone: string): string {
+  const p = zonedParts(instant, timeZone, true);
+  return p ? `${p.date} ${p.time} ${p.zone}` : "—";
+}
+
+/** "15:03 GMT+1": the short clock time in the viewer's zone (without the zone name where a tooltip carries it). */
+export function formatClock(instant: Date | number | string, timeZone: string, options: { zone?: boolean } = {}): string {
+  const p = zonedParts(instant, timeZone, false);
+  if (!p) return "—";
+  return options.zone === false ? p.time : `${p.time} ${p.zone}`;
 }
 
 /** ISO 8601 UTC, for hover titles and machine-readable attributes. */
@@ -21,9 +58,9 @@ export function isoUtc(instant: Date | number | string): string {
   return Number.isNaN(date.getTime()) ? "" : date.toISOString();
 }
 
-/** "UTC" for the UTC zones, else the short offset name ("GMT+1"), which is unambiguous. */
-function zoneLabel(zoned: TZDate, zone: string): string {
-  return /^(Etc\/)?(UTC|UCT|GMT|Zulu|Universal)$/.test(zone) ? "UTC" : format(zoned, "zzz");
+/** "UTC" for the UTC zones, else Intl's short name ("GMT+1", "CST"). */
+function zoneLabel(zone: string, intlName: string): string {
+  return /^(Etc\/)?(UTC|UCT|GMT|Zulu|Universal)$/.test(zone) ? "UTC" : intlName;
 }
 
 function safeZone(timeZone: string): string {

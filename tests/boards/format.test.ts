@@ -12,6 +12,7 @@ describe("false-alarm rate in a human unit", () => {
     expect(formatFalseAlarmRate(1 / 3)).toBe("1 per 3 years");
     expect(formatFalseAlarmRate(3e-5)).toBe("1 per 33,000 years");
     expect(formatFalseAlarmRate(2e-7)).toBe("1 per 5 million years");
+    expect(formatFalseAlarmRate(1e-6)).toBe("1 per 1 million years");
     expect(formatFalseAlarmRate(0.999)).toBe("1 per year");
   });
 
@@ -94,5 +95,15 @@ describe("percent and zoned times", () => {
     expect(formatInZone(instant, "UTC")).toBe("2025-01-15 12:00:00 UTC");
     expect(formatInZone(instant, "Europe/Berlin")).toBe("2025-01-15 13:00:00 GMT+1");
     expect(formatInZone(instant, "Not/AZone")).toBe("2025-01-15 12:00:00 UTC");
+  });
+});
+
+describe("clock times", () => {
+  it("shows hours and minutes with the zone, across a date line", async () => {
+    const { formatClock } = await import("@/lib/format/time");
+    const instant = Date.UTC(2025, 6, 1, 23, 30, 0);
+    expect(formatClock(instant, "UTC")).toBe("23:30 UTC");
+    // Perth is UTC+8 all year (no daylight saving), so 23:30 UTC is 07:30 the next morning.
+    expect(formatInZone(instant, "Australia/Perth")).toBe("2025-07-02 07:30:00 GMT+8");
   });
 });

@@ -1,18 +1,28 @@
-import { LayoutGrid } from "lucide-react";
-import { EmptyState } from "@/components/ui/empty-state";
+import { TriageBoard } from "@/components/board/triage-board";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/auth/session";
+import { getBoard } from "@/lib/data/candidates";
+import { listSiteOptions } from "@/lib/data/tasks";
+import { getRoster } from "@/lib/data/triage";
 
 export const metadata = { title: "Triage board" };
+export const dynamic = "force-dynamic";
 
 export default async function TriagePage() {
-  await requirePageUser();
+  const user = await requirePageUser();
+  const [board, roster, sites] = await Promise.all([getBoard(), getRoster(), listSiteOptions()]);
+  const readOnly = user.role !== "shifter" && user.role !== "coordinator";
   return (
     <>
-      <PageHeader title="Triage board" description="Candidate triggers by triage state." />
-      <EmptyState icon={LayoutGrid} title="No candidates yet">
-        New triggers from the detector feed appear here in the first column as they arrive.
-      </EmptyState>
+      <PageHeader
+        title="Triage board"
+        description={
+          readOnly
+            ? "Candidate triggers by triage state. Your role reads this board; shifters and coordinators move cards."
+            : "Drag a card (or use its ⋯ button) to change its state; drop it on a person to assign it. Decided cards leave the board after 14 days; the candidate list keeps everything."
+        }
+      />
+      <TriageBoard initialBoard={board} initialRoster={roster} sites={sites} viewer={{ id: user.id, role: user.role, timeZone: user.timeZone }} />
     </>
   );
 }

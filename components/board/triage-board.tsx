@@ -1,0 +1,271 @@
+"use client";
+
+import {
+  DndContext,
+  DragOverlay,
+  KeyboardSensor,
+  PointerSensor,
+  useSensor,
+  useSensors,
+  type DragEndEvent,
+  type DragStartEvent,
+  type UniqueIdentifier,
+} from "@dnd-kit/core";
+import { useQuery } from "@tanstack/react-query";
+import dynamic from "next/dynamic";
+import { useRouter } from "next/navigation";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { toast } from "sonner";
+import { stageLabels } from "@/components/candidate/stage-badge";
+import { useLiveEvents } from "@/components/live/live-store";
+import { queryKeys } from "@/components/live/query-keys";
+import { triageStates, type Stage, type TriageState } from "@/db/schema/candidates";
+import { apiFetch } from "@/lib/api-client";
+import type { BoardCard, BoardData } from "@/lib/data/candidates";
+import type { Roster, RosterPerson } from "@/lib/data/triage";
+import { formatFalseAlarmRate } from "@/lib/format/far";
+import { canTransition, triageLabels, type TriageVia } from "@/lib/triage/transitions";
+import type { TaskDraft } from "@/lib/validations/tasks";
+import { boardAnnouncements, screenReaderInstructions } from "./announcements";
+import { CardActionsDialog } from "./card-actions-dialog";
+import { createKeyboardTargets } from "./keyboard-targets";
+import { toastRefusal } from "./mutation-errors";
+import type { SiteOption } from "./plan-follow-up-dialog";
+import { RosterStrip } from "./roster-strip";
+import { DraggableTriageCard, TriageCardBody } from "./triage-card";
+import { TriageColumn } from "./triage-column";
+import { setServerNow } from "./use-now";
+import { useTriageMutations } from "./use-triage-mutations";
+
+// Forms load on first use, keeping the board's first-load script small.
+const DismissDialog = dynamic(() => import("./dismiss-dialog"), { ssr: false });
+const PlanFollowUpDialog = dynamic(() => import("./plan-follow-up-dialog"), { ssr: false });
+
+interface Viewer {
+  id: string;
+  role: string;
+  timeZone: string;
+}
+
+interface Pending {
+  card: BoardCard;
+  via: TriageVia;
+}
+
+export function TriageBoard({
+  initialBoard,
+  initialRoster,
+  sites,
+  viewer,
+}: {
+  initialBoard: BoardData;
+  initialRoster: Roster;
+  sites: SiteOption[];
+  viewer: Viewer;
+}) {
+  const router = useRouter();
+  const canTriage = viewer.role === "shifter" || viewer.role === "coordinator";
+  const { data: board } = useQuery({ queryKey: queryKeys.board, queryFn: () => apiFetch<BoardData>("/api/v1/board"), initialData: initialBoard });
+  const { data: roster } = useQuery({ queryKey: queryKeys.roster, queryFn: () => apiFetch<Roster>("/api/v1/roster"), initialData: initialRoster });
+  const { move, assign } = useTriageMutations();
+  const [activeId, setActiveId] = useState<string | null>(null);
+  const [actionsFor, setActionsFor] = useState<string | null>(null);
+  const [dismissing, setDismissing] = useState<Pending | null>(null);
+  const [planning, setPlanning] = useState<Pending | null>(null);
+  const [ready, setReady] = useState(false);
+
+  useEffect(() => setServerNow(board.serverNow), [board.serverNow]);
+  useEffect(() => setReady(true), []);
+
+  const byId = useMemo(() => new Map(board.cards.map((c) => [c.id, c])), [board.cards]);
+  const columns = useMemo(() => {
+    const grouped = Object.fromEntries(triageStates.map((s) => [s, [] as BoardCard[]])) as Record<TriageState, BoardCard[]>;
+    for (const card of board.cards) grouped[card.triageState].push(card);
+    return grouped;
+  }, [board.cards]);
+  const peopleById = useMemo(() => new Map(roster.people.map((p) => [p.id, p])), [roster.people]);
+
+  // Drop-target order for keyboard dragging: columns left to right, then people.
+  const orderRef = useRef<UniqueIdentifier[]>([]);
+  orderRef.current = [...triageStates.map((s) => `column:${s}`), ...roster.people.map((p) => `person:${p.id}`)];
+  const [keyboard] = useState(() => createKeyboardTargets(() => orderRef.current));
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 5 } }),
+    useSensor(KeyboardSensor, { coordinateGetter: keyboard.coordinateGetter }),
+  );
+
+  const requestMove = useCallback(
+    (card: BoardCard, to: TriageState, via: TriageVia) => {
+      if (to === card.triageState) return;
+      if (!canTransition(card.triageState, to)) {
+        toast.warning(`Cannot move from “${triageLabels[card.triageState]}” to “${triageLabels[to]}”`);
+        return;
+      }
+      if (to === "dismissed") setDismissing({ card, via });
+      else if (to === "pursue") setPlanning({ card, via });
+      else move.mutate({ card, to, via });
+    },
+    [move],
+  );
+  const requestAssign = useCallback(
+    (card: BoardCard, person: RosterPerson | null, via: TriageVia) => {
+      if ((card.owner?.id ?? null) === (person?.id ?? null)) return;
+      assign.mutate({ card, person, via });
+    },
+    [assign],
+  );
+
+  const onDragStart = ({ active }: DragStartEvent) => {
+    const card = byId.get(String(active.id));
+    setActiveId(String(active.id));
+    keyboard.begin(card ? `column:${card.triageState}` : null);
+  };
+  const onDragEnd = ({ active, over }: DragEndEvent) => {
+    setActiveId(null);
+    keyboard.end();
+    const card = byId.get(String(active.id));
+    if (!card || !over) return;
+    const [kind, id] = String(over.id).split(":") as [string, string];
+    if (kind === "column") requestMove(card, id as TriageState, "board");
+    if (kind === "person") requestAssign(card, peopleById.get(id) ?? null, "board");
+  };
+
+  const announcements = useMemo(
+    () =>
+      boardAnnouncements({
+        card: (id) => `candidate ${byId.get(String(id))?.externalId ?? ""}`,
+        home: (id) => `column ${triageLabels[byId.get(String(id))?.triageState ?? "new"]}`,
+        target: (cardId, targetId) => {
+          const [kind, id] = String(targetId).split(":") as [string, string];
+          if (kind === "person") return `${peopleById.get(id)?.name ?? "a person"}; drop to assign`;
+          const from = byId.get(String(cardId))?.triageState ?? "new";
+          const to = id as TriageState;
+          const note = to === from ? ", where it is now" : canTransition(from, to) ? "" : ", not allowed from here";
+          return `column ${triageLabels[to]}${note}`;
+        },
+      }),
+    [byId, peopleById],
+  );
+
+  useLiveEvents((event) => {
+    if (event.kind !== "candidate.created") return;
+    const data = event.data ?? {};
+    const name = typeof data.externalId === "string" ? data.externalId : "candidate";
+    const stage = typeof data.stage === "string" ? stageLabels[data.stage as Stage] : undefined;
+    const far = typeof data.falseAlarmRatePerYear === "number" ? `FAR ${formatFalseAlarmRate(data.falseAlarmRatePerYear)}` : undefined;
+    toast.info(`New candidate ${name}`, {
+      description: [stage, far].filter(Boolean).join(" · "),
+      action: event.candidateId ? { label: "Open", onClick: () => router.push(`/candidates/${event.candidateId}`) } : undefined,
+    });
+  });
+
+  const openActions = useCallback((id: string) => setActionsFor(id), []);
+  const activeCard = activeId ? byId.get(activeId) : undefined;
+  const actionsCard = actionsFor ? (byId.get(actionsFor) ?? null) : null;
+
+  const submitPlan = async (pending: Pending, tasks: TaskDraft[]) => {
+    try {
+      await move.mutateAsync({ card: pending.card, to: "pursue", via: pending.via });
+    } catch {
+      setPlanning(null);
+      return;
+    }
+    setPlanning(null);
+    if (tasks.length === 0) return;
+    try {
+      await apiFetch(`/api/v1/candidates/${pending.card.id}/tasks`, { method: "POST", json: { tasks } });
+      toast.success(`${tasks.length} follow-up task${tasks.length === 1 ? "" : "s"} created for ${pending.card.externalId}`);
+    } catch (error) {
+      toastRefusal(error, "Creating the follow-up tasks");
+    }
+  };
+
+  return (
+    <div data-testid="triage-board" data-board-ready={ready ? "true" : undefined}>
+      <DndContext
+        id="triage-board"
+        sensors={sensors}
+        collisionDetection={keyboard.collisionDetection}
+        onDragStart={onDragStart}
+        onDragEnd={onDragEnd}
+        onDragCancel={() => {
+          setActiveId(null);
+          keyboard.end();
+        }}
+        accessibility={{ announcements, screenReaderInstructions }}
+      >
+        <RosterStrip roster={roster} dragging={activeCard !== undefined} />
+        <div className="overflow-x-auto pb-2">
+          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] min-w-[66rem] grid-cols-6 gap-2.5">
+            {triageStates.map((state) => (
+              <TriageColumn
+                key={state}
+                state={state}
+                count={columns[state].length}
+                dropState={
+                  !activeCard ? "idle" : activeCard.triageState === state ? "home" : canTransition(activeCard.triageState, state) ? "allowed" : "refused"
+                }
+              >
+                {columns[state].map((card) => (
+                  <DraggableTriageCard
+                    key={card.id}
+                    card={card}
+                    canDrag={canTriage}
+                    deadlines={board.deadlines}
+                    timeZone={viewer.timeZone}
+                    onActions={openActions}
+                  />
+                ))}
+                {columns[state].length === 0 ? (
+                  <p className="px-1 py-4 text-center text-xs text-faint">
+                    {state === "new" ? "Nothing waiting. New triggers from the feed land here." : "Empty"}
+                  </p>
+                ) : null}
+              </TriageColumn>
+            ))}
+          </div>
+        </div>
+        <DragOverlay dropAnimation={null}>
+          {activeCard ? (
+            <div className="w-60 rounded-md border border-accent bg-surface p-2 shadow-2xl">
+              <TriageCardBody card={activeCard} deadlines={board.deadlines} timeZone={viewer.timeZone} />
+            </div>
+          ) : null}
+        </DragOverlay>
+      </DndContext>
+      <CardActionsDialog
+        card={actionsCard}
+        roster={roster}
+        canTriage={canTriage}
+        onClose={() => setActionsFor(null)}
+        onMove={(card, to) => {
+          setActionsFor(null);
+          requestMove(card, to, "menu");
+        }}
+        onAssign={(card, person) => {
+          setActionsFor(null);
+          requestAssign(card, person, "menu");
+        }}
+      />
+      {dismissing ? (
+        <DismissDialog
+          externalId={dismissing.card.externalId}
+          onCancel={() => setDismissing(null)}
+          onConfirm={(reason) => {
+            move.mutate({ card: dismissing.card, to: "dismissed", reason, via: dismissing.via });
+            setDismissing(null);
+          }}
+        />
+      ) : null}
+      {planning ? (
+        <PlanFollowUpDialog
+          candidateId={planning.card.id}
+          externalId={planning.card.externalId}
+          sites={sites}
+          onCancel={() => setPlanning(null)}
+          onSubmit={(tasks) => submitPlan(planning, tasks)}
+        />
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,125 @@
+"use client";
+
+import { useDraggable } from "@dnd-kit/core";
+import { GripVertical, MoreHorizontal } from "lucide-react";
+import Link from "next/link";
+import { memo } from "react";
+import { CAUTION_TEXT } from "@/components/candidate/caution";
+import { ClassBar } from "@/components/candidate/class-bar";
+import { StageBadge } from "@/components/candidate/stage-badge";
+import { Avatar } from "@/components/ui/avatar";
+import { cn } from "@/components/ui/cn";
+import type { BoardCard, BoardData } from "@/lib/data/candidates";
+import { formatFalseAlarmRate, formatFalseAlarmRateExact } from "@/lib/format/far";
+import { formatClock, formatInZone, isoUtc } from "@/lib/format/time";
+import { formatWithUncertainty, SOLAR_MASS_UNIT } from "@/lib/format/uncertainty";
+import { AckTimer, Age, MergerCountdown } from "./card-timers";
+
+interface CardProps {
+  card: BoardCard;
+  deadlines: BoardData["deadlines"];
+  timeZone: string;
+  onActions?: (id: string) => void;
+}
+
+/** What a card shows; memoised so a drag (which re-renders every draggable) does not redraw 500 card bodies. */
+export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, timeZone, onActions }: CardProps) {
+  return (
+    <div className="min-w-0 flex-1 space-y-1.5">
+      <div className="flex items-center gap-1.5">
+        <Link
+          href={`/candidates/${card.id}`}
+          className={cn("truncate font-mono text-sm font-semibold hover:underline", card.withdrawn && "line-through decoration-alarm")}
+          prefetch={false}
+        >
+          {card.externalId}
+        </Link>
+        <span className="text-xs text-faint">r{card.revision}</span>
+        {onActions ? (
+          <button
+            type="button"
+            onClick={() => onActions(card.id)}
+            className="ml-auto rounded p-0.5 text-muted hover:bg-raised hover:text-fg"
+            aria-label={`Actions for candidate ${card.externalId}`}
+            data-testid="card-actions"
+          >
+            <MoreHorizontal aria-hidden className="h-4 w-4" />
+          </button>
+        ) : null}
+      </div>
+      <div className="flex flex-wrap items-center gap-x-2 gap-y-1 text-xs text-muted">
+        <StageBadge stage={card.stage} />
+        <time dateTime={isoUtc(card.receivedAt)} title={`Received ${formatInZone(card.receivedAt, timeZone)} (${isoUtc(card.receivedAt)})`}>
+          {formatClock(card.receivedAt, timeZone, { zone: false })} · <Age since={card.receivedAt} />
+        </time>
+      </div>
+      {card.stage === "early-warning" ? <MergerCountdown eventTime={card.eventTime} coalescenceTimeS={card.coalescenceTimeS} /> : null}
+      <ClassBar p={card.classes} />
+      <dl className="space-y-0.5 text-xs" title={CAUTION_TEXT}>
+        <div className="flex gap-1.5">
+          <dt className="shrink-0 text-faint" title="Chirp mass, detector frame">
+            𝓜<sub>det</sub>
+          </dt>
+          <dd className="font-mono tabular-nums leading-tight">
+            {card.chirpMassDetectorFrame === null
+              ? "not fitted"
+              : formatWithUncertainty(card.chirpMassDetectorFrame, card.chirpMassDetectorFrameSd, SOLAR_MASS_UNIT)}
+          </dd>
+        </div>
+        <div className="flex gap-1.5">
+          <dt className="shrink-0 text-faint">FAR</dt>
+          <dd className="tabular-nums" title={formatFalseAlarmRateExact(card.falseAlarmRatePerYear)}>
+            {formatFalseAlarmRate(card.falseAlarmRatePerYear)}
+          </dd>
+        </div>
+      </dl>
+      <div className="flex flex-wrap items-center gap-x-2 gap-y-1">
+        <span className="font-mono text-xs text-muted" aria-label={`Detectors ${card.detectors.join(", ")}`}>
+          {card.detectors.join(" ")}
+        </span>
+        {card.liveTaskCount > 0 ? <span className="text-xs text-accent">{card.liveTaskCount} task{card.liveTaskCount === 1 ? "" : "s"}</span> : null}
+        <span className="ml-auto flex items-center gap-1.5">
+          {card.triageState === "new" ? <AckTimer receivedAt={card.receivedAt} deadlines={deadlines} /> : null}
+          {card.owner ? <Avatar name={card.owner.name} initials={card.owner.initials} /> : null}
+        </span>
+      </div>
+    </div>
+  );
+});
+
+/** A card on the board: the whole card follows the mouse; the grip is the keyboard handle. */
+export function DraggableTriageCard({ card, canDrag, ...props }: CardProps & { canDrag: boolean }) {
+  const { setNodeRef, setActivatorNodeRef, listeners, attributes, isDragging } = useDraggable({
+    id: card.id,
+    disabled: !canDrag,
+  });
+  return (
+    <article
+      ref={setNodeRef}
+      {...(canDrag ? listeners : {})}
+      data-card-id={card.id}
+      data-testid="triage-card"
+      aria-label={`Candidate ${card.externalId}${card.withdrawn ? ", withdrawn" : ""}`}
+      className={cn(
+        "flex gap-1 rounded-md border bg-surface p-2 shadow-sm [contain-intrinsic-size:auto_9rem] [content-visibility:auto]",
+        card.withdrawn ? "border-alarm/40 bg-alarm/5" : "border-line",
+        isDragging && "opacity-40",
+        canDrag && "touch-none",
+      )}
+    >
+      {canDrag ? (
+        <button
+          type="button"
+          ref={setActivatorNodeRef}
+          {...attributes}
+          aria-label={`Move candidate ${card.externalId}`}
+          className="-ml-1 flex w-4 shrink-0 cursor-grab items-start justify-center rounded pt-0.5 text-faint hover:text-fg active:cursor-grabbing"
+          data-testid="card-handle"
+        >
+          <GripVertical aria-hidden className="h-4 w-4" />
+        </button>
+      ) : null}
+      <TriageCardBody card={card} {...props} />
+    </article>
+  );
+}

@@ -1,0 +1,14 @@
+import { TriangleAlert } from "lucide-react";
+
+export const CAUTION_TEXT =
+  "Rapid leading-order estimates for triage. Official parameter estimates and local observatory safety rules take precedence.";
+
+/** The caution every derived number carries, shown where those numbers are read closely. */
+export function Caution() {
+  return (
+    <p role="note" className="flex items-start gap-2 rounded-md border border-warn/40 bg-warn/10 px-3 py-2 text-sm text-fg">
+      <TriangleAlert aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-warn" />
+      <span>{CAUTION_TEXT}</span>
+    </p>
+  );
+}

@@ -1,0 +1,37 @@
+/** TanStack Query keys of the boards area, named once so live invalidation and the screens agree. */
+export const queryKeys = {
+  board: ["board"] as const,
+  roster: ["roster"] as const,
+  tasks: ["tasks"] as const,
+  candidates: ["candidates"] as const,
+  candidate: (id: string) => ["candidate", id] as const,
+  notes: (id: string) => ["notes", id] as const,
+};
+
+export type QueryKey = readonly unknown[];
+
+interface EventLike {
+  kind: string;
+  candidateId: string | null;
+  taskId: string | null;
+}
+
+/** Which queries an event makes stale; unknown kinds touch nothing. */
+export function keysForEvent(event: EventLike): QueryKey[] {
+  const keys: QueryKey[] = [];
+  const candidate = event.candidateId ? [queryKeys.candidate(event.candidateId)] : [];
+  if (event.kind === "candidate.note-added") {
+    if (event.candidateId) keys.push(queryKeys.notes(event.candidateId));
+    return [...keys, ...candidate];
+  }
+  if (event.kind.startsWith("candidate.")) {
+    // A withdrawal cancels tasks, a revision changes task cards' candidate stage: refresh tasks too.
+    keys.push(queryKeys.board, queryKeys.candidates, ...candidate);
+    if (event.kind === "candidate.withdrawn" || event.kind === "candidate.revised") keys.push(queryKeys.tasks);
+    return keys;
+  }
+  if (event.kind.startsWith("task.")) return [queryKeys.tasks, queryKeys.board, ...candidate];
+  if (event.kind === "shift.changed" || event.kind === "user.changed") return [queryKeys.roster];
+  if (event.kind === "settings.changed") return [queryKeys.board];
+  return keys;
+}

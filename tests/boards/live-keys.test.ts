@@ -1,0 +1,26 @@
+import { describe, expect, it } from "vitest";
+import { keysForEvent } from "@/components/live/query-keys";
+import { eventKinds } from "@/lib/events/kinds";
+
+const event = (kind: string, candidateId: string | null = "c1", taskId: string | null = null) => ({ kind, candidateId, taskId });
+
+describe("which queries a live event refreshes", () => {
+  it("a triage move refreshes the board, the list and that candidate", () => {
+    expect(keysForEvent(event(eventKinds.candidateTriaged))).toEqual([["board"], ["candidates"], ["candidate", "c1"]]);
+  });
+
+  it("a withdrawal also refreshes the follow-up board (its tasks were cancelled)", () => {
+    expect(keysForEvent(event(eventKinds.candidateWithdrawn))).toContainEqual(["tasks"]);
+    expect(keysForEvent(event(eventKinds.candidateCreated))).not.toContainEqual(["tasks"]);
+  });
+
+  it("task events refresh both boards (cards count live tasks) and the candidate", () => {
+    expect(keysForEvent(event(eventKinds.taskStateChanged, "c2", "t1"))).toEqual([["tasks"], ["board"], ["candidate", "c2"]]);
+  });
+
+  it("a note refreshes only that thread and candidate; rota changes only the roster; paging events nothing", () => {
+    expect(keysForEvent(event(eventKinds.candidateNoteAdded))).toEqual([["notes", "c1"], ["candidate", "c1"]]);
+    expect(keysForEvent(event(eventKinds.shiftChanged, null))).toEqual([["roster"]]);
+    expect(keysForEvent(event(eventKinds.pageQueued))).toEqual([]);
+  });
+});
