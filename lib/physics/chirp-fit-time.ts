@@ -43,6 +43,7 @@ function subsample(samples: Samples): Samples {
   return { t: pick(samples.t), f: pick(samples.f), sigma: samples.sigma === undefined ? undefined : pick(samples.sigma) };
 }
 
+/** Detector-frame chirp mass (M☉) and t_c (s) with 1σ errors from f(t) samples (Hz, s), Peters & Mathews 1963. */
 export function fitTimeTrack(track: TimeTrackInput): PhysicsResult<TimeTrackFit> {
   const checked = validateTimeTrack(track);
   if (!checked.ok) return checked;

@@ -21,6 +21,7 @@ function hermite(s: number, p0: number, m0: number, p1: number, m1: number, h: n
   return (2 * s3 - 3 * s2 + 1) * p0 + (s3 - 2 * s2 + s) * h * m0 + (-2 * s3 + 3 * s2) * p1 + (s3 - s2) * h * m1;
 }
 
+/** Table of D_L(z) (Mpc) for 0 ≤ z ≤ maxRedshift and its inverse, Hogg 1999 Eqs. 15–16 and 21 (see module comment). */
 export function createDistanceTable(
   params: FlatLambdaCdmParameters,
   maxRedshift: number = DISTANCE_TABLE_MAX_REDSHIFT,

@@ -40,6 +40,7 @@ export interface MergerFrequencyInput {
   redshift: number | null;
 }
 
+/** ISCO, remnant and ringdown figures (Hz, s, M☉ detector frame) for the mean masses; sources in the module comment. */
 export function computeMergerFrequencies(input: MergerFrequencyInput): PhysicsResult<MergerFrequencies> {
   const { mass1DetectorFrame: m1, mass2DetectorFrame: m2, chi1, chi2, redshift } = input;
   if (!(m1 > 0) || !(m2 > 0) || !Number.isFinite(m1) || !Number.isFinite(m2)) {

@@ -65,6 +65,10 @@ export function validateSourceClassSettings(settings: SourceClassSettings): Phys
   return succeed(null);
 }
 
+/**
+ * Class probabilities, P(NS) and P(matter outside the hole) from `settings.sampleCount` seeded draws; masses in M☉
+ * (detector frame in, source frame m/(1+z) for the thresholds), distance in Mpc. Sources: see the module comment.
+ */
 export function computeSourceClasses(
   input: SourceClassInput,
   settings: SourceClassSettings,
