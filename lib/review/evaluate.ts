@@ -1,0 +1,31 @@
+import { candidateSteps, type CandidateFacts, type StepTiming } from "./timeline";
+import type { StepId } from "./steps";
+
+export type EvaluatedStep = StepTiming;
+
+export interface CandidateReview {
+  facts: CandidateFacts;
+  steps: Record<StepId, EvaluatedStep>;
+}
+
+/** A step's deadline applies to its own duration; waiting and skipped steps are never late. */
+export function isOverDeadline(timing: Pick<StepTiming, "status" | "durationMs">, deadlineMs: number): boolean {
+  if (timing.durationMs === null) return false;
+  return (timing.status === "done" || timing.status === "open") && timing.durationMs > deadlineMs;
+}
+
+/** Step timings and deadline flags for each candidate; deadlines are read at call time, never stored. */
+export function reviewCandidates(
+  facts: readonly CandidateFacts[],
+  deadlinesMs: Record<StepId, number>,
+  nowMs: number,
+): CandidateReview[] {
+  return facts.map((f) => {
+    const [feed, page, acknowledge, decide, claim, report] = candidateSteps(f, nowMs) as [
+      StepTiming, StepTiming, StepTiming, StepTiming, StepTiming, StepTiming,
+    ];
+    const steps = { feed, page, acknowledge, decide, claim, report };
+    for (const t of [feed, page, acknowledge, decide, claim, report]) t.overDeadline = isOverDeadline(t, deadlinesMs[t.step]);
+    return { facts: f, steps };
+  });
+}

@@ -1,0 +1,40 @@
+import type { SettingValue } from "@/lib/data/settings";
+
+/** The response chain, in order; each step runs from the end of the one before. */
+export const stepIds = ["feed", "page", "acknowledge", "decide", "claim", "report"] as const;
+export type StepId = (typeof stepIds)[number];
+
+export interface StepInfo {
+  id: StepId;
+  label: string;
+  /** what starts and ends the step, for headings and tooltips */
+  span: string;
+}
+
+export const steps: Record<StepId, StepInfo> = {
+  feed: { id: "feed", label: "Feed latency", span: "merger → receipt" },
+  page: { id: "page", label: "Paging", span: "receipt → first page sent" },
+  acknowledge: { id: "acknowledge", label: "Acknowledgement", span: "first page → acknowledged" },
+  decide: { id: "decide", label: "Triage decision", span: "acknowledged → pursue / dismiss / expert" },
+  claim: { id: "claim", label: "Follow-up claim", span: "pursue decision → first task claimed" },
+  report: { id: "report", label: "First report", span: "first claim → first report" },
+};
+
+export type DeadlineSettings = SettingValue<"deadlines">;
+
+/** Each step's deadline, in milliseconds of that step's own duration. */
+export function stepDeadlinesMs(d: DeadlineSettings): Record<StepId, number> {
+  const ms = (minutes: number) => Math.round(minutes * 60_000);
+  return {
+    feed: ms(d.feedLatencyMinutes),
+    page: ms(d.pageMinutes),
+    acknowledge: ms(d.acknowledgeStepMinutes),
+    decide: ms(d.decisionMinutes),
+    claim: ms(d.claimMinutes),
+    report: ms(d.reportMinutes),
+  };
+}
+
+export function isStepId(value: string): value is StepId {
+  return (stepIds as readonly string[]).includes(value);
+}
