@@ -112,3 +112,35 @@ export const markReadSchema = z.union([
   z.object({ ids: z.array(z.string().min(1).max(64)).min(1).max(500) }),
   z.object({ all: z.literal(true) }),
 ]);
+
+/** The settings form's shape (quiet hours as a switch and two time inputs), turned into the API body by `toPreferencesInput`. */
+export const preferencesFormSchema = z
+  .object({
+    push: z.boolean(),
+    email: z.boolean(),
+    quietEnabled: z.boolean(),
+    quietStart: z.string(),
+    quietEnd: z.string(),
+    taskSiteIds: z.array(z.string()),
+    taskPush: z.boolean(),
+    taskEmail: z.boolean(),
+  })
+  .superRefine((f, ctx) => {
+    if (!f.quietEnabled) return;
+    for (const key of ["quietStart", "quietEnd"] as const) {
+      if (!localTimeSchema.safeParse(f[key]).success) ctx.addIssue({ code: "custom", path: [key], message: "use HH:mm, 24-hour" });
+    }
+    if (f.quietStart === f.quietEnd) ctx.addIssue({ code: "custom", path: ["quietEnd"], message: "quiet hours must not start and end at the same time" });
+  });
+export type PreferencesFormValues = z.infer<typeof preferencesFormSchema>;
+
+export function toPreferencesInput(f: PreferencesFormValues): PreferencesInput {
+  return {
+    push: f.push,
+    email: f.email,
+    quietStart: f.quietEnabled ? f.quietStart : null,
+    quietEnd: f.quietEnabled ? f.quietEnd : null,
+    taskSiteIds: f.taskSiteIds,
+    taskChannels: { push: f.taskPush, email: f.taskEmail },
+  };
+}

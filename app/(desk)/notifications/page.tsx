@@ -1,18 +1,27 @@
-import { Bell } from "lucide-react";
-import { EmptyState } from "@/components/ui/empty-state";
+import { FailedDeliveries } from "@/components/paging/failed-deliveries";
+import { NotificationList } from "@/components/paging/notification-list";
 import { PageHeader } from "@/components/ui/page-header";
+import { Panel, PanelTitle } from "@/components/ui/panel";
+import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata = { title: "Pages & alerts" };
 
 export default async function NotificationsPage() {
-  await requirePageUser();
+  const user = await requirePageUser();
   return (
-    <>
-      <PageHeader title="Pages & alerts" description="Everything you were paged about, newest first." />
-      <EmptyState icon={Bell} title="No pages yet">
-        When you are paged about a candidate or a task, it shows here at once, whether or not push or e-mail reached you.
-      </EmptyState>
-    </>
+    <div className="max-w-5xl space-y-4">
+      <PageHeader
+        title="Pages & alerts"
+        description="Everything you were paged about, newest first, and whether push and e-mail reached you. Times in your zone; hover for UTC."
+      />
+      {hasRole(user, can.readDeadLetters) ? (
+        <Panel>
+          <PanelTitle>Failed deliveries (everyone)</PanelTitle>
+          <FailedDeliveries timeZone={user.timeZone} />
+        </Panel>
+      ) : null}
+      <NotificationList timeZone={user.timeZone} />
+    </div>
   );
 }

@@ -7,4 +7,5 @@ import { notificationListQuerySchema } from "@/lib/validations/paging";
 export const GET = handler({ roles: can.read, query: notificationListQuerySchema }, async ({ user, query }) => ({
   items: await listMyNotifications(user.id, { limit: query.limit, before: query.before, unreadOnly: query.unread === "1" }),
   unread: await countUnread(user.id),
+  me: { id: user.id, timeZone: user.timeZone },
 }));
