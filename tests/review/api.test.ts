@@ -13,7 +13,7 @@ import { setReviewClock } from "@/lib/review/clock";
 import type { StepList } from "@/lib/review/list";
 import type { ReviewReport } from "@/lib/review/report";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";
-import { NOW, writeFixtureLog, type FixtureLog } from "./fixture-log";
+import { NOW, writeFixtureLog, type FixtureLog } from "./helpers/fixture-log";
 
 let testDb: TestDatabase;
 let log: FixtureLog;

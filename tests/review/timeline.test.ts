@@ -4,7 +4,7 @@ import { reviewCandidates, type CandidateReview } from "@/lib/review/evaluate";
 import { stepDeadlinesMs } from "@/lib/review/steps";
 import { settingSchemas } from "@/lib/data/settings";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
-import { NOW, T0, writeFixtureLog, type FixtureLog } from "./fixture-log";
+import { NOW, T0, writeFixtureLog, type FixtureLog } from "./helpers/fixture-log";
 
 let testDb: TestDatabase;
 let log: FixtureLog;

@@ -2,11 +2,11 @@ import { getDb } from "@/db";
 import { candidates, followUpTasks, notifications, shifts, sites, type NewCandidate } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/roles";
 import { appendEvent } from "@/lib/data/events";
-import { createTestUser } from "../helpers/test-db";
+import { createTestUser } from "../../helpers/test-db";
 
 /**
  * A small audit log written by hand, every time chosen so the expected durations can be worked out on paper
- * (see timeline.test.ts). T0 is a Monday, 10:00 UTC. Fictional source "tessera", ids TX-A … TX-F.
+ * (see ../timeline.test.ts). T0 is a Monday, 10:00 UTC. Fictional source "tessera", ids TX-A … TX-F.
  */
 export const T0 = Date.UTC(2026, 2, 2, 10, 0, 0);
 export const s = (seconds: number) => T0 + seconds * 1000;
