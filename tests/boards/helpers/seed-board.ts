@@ -1,7 +1,9 @@
 import type { Stage, TriageState } from "@/db/schema";
 import { ingestCandidate } from "@/lib/data/ingest";
 import type { SessionUser } from "@/lib/auth/roles";
+import { createTasks, listSiteOptions } from "@/lib/data/tasks";
 import { transitionCandidate } from "@/lib/data/triage";
+import { taskKinds } from "@/db/schema";
 import { candidatePayload } from "./payload";
 
 /** A deterministic spread of fictional candidates over the board's columns (for the benchmark and local looks). */
@@ -17,6 +19,7 @@ export async function seedBoardCandidates(count: number, now: Date, actor: Sessi
     [3.8, 2.1],
   ];
   const states: TriageState[] = ["new", "acknowledged", "reviewing", "pursue", "dismissed", "expert"];
+  const sites = await listSiteOptions();
   for (let i = 0; i < count; i++) {
     const receivedAt = new Date(now.getTime() - (count - i) * 47_000);
     const [mass1, mass2] = masses[i % masses.length] ?? [1.4, 1.3];
@@ -38,6 +41,18 @@ export async function seedBoardCandidates(count: number, now: Date, actor: Sessi
     const target = states[(i * 7) % states.length] ?? "new";
     if (actor && target !== "new" && !(target === "pursue" && stage === "withdrawn")) {
       await transitionCandidate({ actor, candidateId: result.answer.id, to: target, reason: "seeded", via: "api", now: receivedAt });
+      if (target === "pursue") {
+        const site = sites[i % Math.max(1, sites.length)];
+        const drafts = [0, 1].map((k) => ({
+          kind: taskKinds[(i + k) % taskKinds.length] ?? "other",
+          siteId: k === 0 ? (site?.id ?? null) : null,
+          windowStart: new Date(now.getTime() + 3600_000),
+          windowEnd: new Date(now.getTime() + 9 * 3600_000),
+          priority: 1 + ((i + k) % 3),
+          notes: k === 0 ? "Tile the 90 % region, brightest galaxies first" : "",
+        }));
+        await createTasks(actor, result.answer.id, drafts, receivedAt);
+      }
     }
   }
   return ids;
