@@ -16,6 +16,7 @@ export type AckLinkState =
       state: "ready" | "already" | "done";
       candidate: CandidateSummary & { triageState: string };
       userName: string;
+      timeZone: string;
       acknowledgedBy: string | null;
       acknowledgedAt: string | null;
       expiresAt: string;
@@ -68,6 +69,7 @@ export async function describeAckLink(token: string, now: Date, justUsed = false
     state,
     candidate,
     userName: person.name,
+    timeZone: person.timeZone,
     acknowledgedBy: ackName ?? null,
     acknowledgedAt: candidate.acknowledgedAt?.toISOString() ?? null,
     expiresAt: new Date(check.claims.expiresAtMs).toISOString(),

@@ -164,3 +164,28 @@ describe("message text", () => {
     expect(formatFalseAlarmRate(0)).toBe("no false alarms expected");
   });
 });
+
+describe("rota week view", () => {
+  it("starts weeks on Monday in the viewer's zone and keeps 23-hour days when clocks go forward", async () => {
+    const { weekDays, weekStartMs, layoutDay } = await import("@/lib/notify/rota-week");
+    // Sunday 2031-03-30 22:30 UTC is already Monday 00:30 in Berlin (CEST, UTC+2).
+    const start = weekStartMs(Date.parse("2031-03-30T22:30:00Z"), "Europe/Berlin");
+    expect(new Date(start).toISOString()).toBe("2031-03-30T22:00:00.000Z");
+    const previous = weekDays(weekStartMs(Date.parse("2031-03-27T12:00:00Z"), "Europe/Berlin"), "Europe/Berlin");
+    const sunday = previous[6];
+    expect(sunday?.key).toBe("2031-03-30");
+    expect(((sunday?.endMs ?? 0) - (sunday?.startMs ?? 0)) / 3_600_000).toBe(23);
+    const day = { key: "d", label: "d", startMs: 0, endMs: 24 * 3_600_000 };
+    const laid = layoutDay(
+      [
+        { startMs: -3_600_000, endMs: 8 * 3_600_000 },
+        { startMs: 6 * 3_600_000, endMs: 12 * 3_600_000 },
+      ],
+      day,
+    );
+    expect(laid.map((s) => [s.lane, s.topFraction, s.continuesBefore])).toEqual([
+      [0, 0, true],
+      [1, 0.25, false],
+    ]);
+  });
+});

@@ -1,18 +1,29 @@
-import { CalendarClock } from "lucide-react";
-import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
+import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
+import { listRotaPeople } from "@/lib/data/rota";
+import { readEscalationPolicy } from "@/lib/notify/policy-store";
+import { localDateToMs, weekStartMs } from "@/lib/notify/rota-week";
+import { EscalationPolicyPanel } from "./_components/escalation-policy-panel";
+import { RotaView } from "./_components/rota-view";
 
 export const metadata = { title: "Rota" };
 
-export default async function RotaPage() {
-  await requirePageUser();
+export default async function RotaPage({ searchParams }: { searchParams: Promise<{ week?: string }> }) {
+  const user = await requirePageUser();
+  const canEdit = hasRole(user, can.manageRota);
+  const { week } = await searchParams;
+  const nowMs = Date.now();
+  const weekStart = weekStartMs((week ? localDateToMs(week, user.timeZone) : null) ?? nowMs, user.timeZone);
+  const [people, policy] = await Promise.all([canEdit ? listRotaPeople() : Promise.resolve([]), readEscalationPolicy()]);
   return (
-    <>
-      <PageHeader title="On-call rota" description="Who is primary and backup shifter, shown in your time zone." />
-      <EmptyState icon={CalendarClock} title="No shifts planned">
-        Coordinators add shifts here; the primary on shift is paged first when a candidate arrives.
-      </EmptyState>
-    </>
+    <div className="space-y-4">
+      <PageHeader
+        title="On-call rota"
+        description={`Who is primary and backup shifter, in your time zone (${user.timeZone}); hover a time for UTC. The primary on shift when a candidate arrives is paged first.`}
+      />
+      <RotaView weekStart={weekStart} timeZone={user.timeZone} people={people} canEdit={canEdit} nowMs={nowMs} />
+      <EscalationPolicyPanel policy={policy} canEdit={hasRole(user, can.manageSettings)} />
+    </div>
   );
 }
