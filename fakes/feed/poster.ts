@@ -43,13 +43,16 @@ export async function sendFeedPost(baseUrl: string, post: FeedPost, secret: stri
 
 const retryStatuses = new Set([502, 503, 504]);
 
+/** Waits `ms`, or less if the signal aborts; leaves no listener behind either way. */
 function sleep(ms: number, signal?: AbortSignal): Promise<void> {
   return new Promise((resolve) => {
-    const timer = setTimeout(resolve, ms);
-    signal?.addEventListener("abort", () => {
+    const done = () => {
       clearTimeout(timer);
+      signal?.removeEventListener("abort", done);
       resolve();
-    }, { once: true });
+    };
+    const timer = setTimeout(done, ms);
+    signal?.addEventListener("abort", done, { once: true });
   });
 }
 

@@ -3,6 +3,7 @@ import { getDb } from "@/db";
 import { candidateRevisions, candidates, derivedQuantities, followUpTasks, type Candidate } from "@/db/schema";
 import { headlineFromDerived, diffHeadlines, type DerivedHeadline, type RevisionHeadline } from "@/lib/feed/headline";
 import { derivationSeed, revisionHeadline, toPhysicsInput } from "@/lib/feed/physics-input";
+import { eventKinds } from "@/lib/events/kinds";
 import { withWriteLock } from "@/lib/feed/write-lock";
 import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
 import { computeDerived } from "@/lib/physics";
@@ -99,9 +100,9 @@ async function writeRevision(
   if (outcome === "stale" && existing) {
     await appendEvent(tx, {
       at,
-      kind: "candidate.revision-stale",
+      kind: eventKinds.candidateRevisionStale,
       candidateId,
-      data: { revision: payload.revision, currentRevision: existing.currentRevision, stage: payload.stage },
+      data: { revision: payload.revision, current: existing.currentRevision, stage: payload.stage },
     });
   }
   return { status: 201, outcome, answer: { id: candidateId, revision: payload.revision, derived } };
@@ -187,7 +188,7 @@ async function createCandidate(tx: Tx, payload: FeedCandidate, headline: Derived
   if (!row) throw new Error("candidate insert returned nothing");
   const event = await appendEvent(tx, {
     at,
-    kind: "candidate.created",
+    kind: eventKinds.candidateCreated,
     candidateId: row.id,
     toState: "new",
     data: { ...cardData(payload, headline), triageState: "new", receivedAt: at.toISOString() },
@@ -239,7 +240,7 @@ async function reviseCandidate(
   const changes = diffHeadlines(headlineOfCandidate(existing), revisionHeadline(payload, headline));
   const event = await appendEvent(tx, {
     at,
-    kind: "candidate.revised",
+    kind: eventKinds.candidateRevised,
     candidateId: existing.id,
     data: { ...cardData(payload, headline), previousRevision: existing.currentRevision, changes },
   });
@@ -269,7 +270,7 @@ async function withdrawCandidate(tx: Tx, candidateId: string, revision: number, 
   }
   const withdrawnEvent = await appendEvent(tx, {
     at,
-    kind: "candidate.withdrawn",
+    kind: eventKinds.candidateWithdrawn,
     candidateId,
     toState: "withdrawn",
     data: { revision, cancelledTaskIds: tasks.map((task) => task.id) },
@@ -277,7 +278,7 @@ async function withdrawCandidate(tx: Tx, candidateId: string, revision: number, 
   for (const task of tasks) {
     await appendEvent(tx, {
       at,
-      kind: "task.cancelled",
+      kind: eventKinds.taskCancelled,
       candidateId,
       taskId: task.id,
       fromState: task.state,
