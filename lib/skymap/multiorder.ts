@@ -1,5 +1,5 @@
 import { SkymapError } from "./errors";
-import { decodeUniq, nestCentreVec, pixelAreaSr } from "./healpix";
+import { decodeUniq, MAX_ORDER, nestCentreVec, pixelAreaSr } from "./healpix";
 import { normalise } from "./validate";
 import type { MultiOrderSkymap } from "./types";
 
@@ -17,7 +17,13 @@ export function buildMultiOrder(
   if (count === 0) throw new SkymapError("bad-uniq", "multi-order map has no pixels");
   const order = new Uint8Array(count);
   const ipix = new Float64Array(count);
+  const probability = new Float64Array(count);
+  const densityPerSr = new Float64Array(count);
+  // every pixel as its index range at MAX_ORDER (exact doubles: 12·4^24 < 2^53), for the overlap check
+  const starts = new Float64Array(count);
+  const ends = new Float64Array(count);
   let maxOrder = 0;
+  let covered = 0;
   for (let i = 0; i < count; i++) {
     const value = uniq[i] ?? -1;
     const decoded = decodeUniq(value);
@@ -27,20 +33,22 @@ export function buildMultiOrder(
         `UNIQ value ${value} in row ${i + 1} is not a NUNIQ index (4·4^order + ipix, order ≤ 24)`,
       );
     }
-    order[i] = decoded.order;
+    const o = decoded.order;
+    order[i] = o;
     ipix[i] = decoded.ipix;
-    if (decoded.order > maxOrder) maxOrder = decoded.order;
-  }
-  checkDisjoint(order, ipix, maxOrder, warnings);
-
-  const probability = new Float64Array(count);
-  const densityPerSr = new Float64Array(count);
-  for (let i = 0; i < count; i++) {
-    const area = pixelAreaSr(order[i] ?? 0);
+    if (o > maxOrder) maxOrder = o;
+    const span = 4 ** (MAX_ORDER - o);
+    starts[i] = decoded.ipix * span;
+    ends[i] = (decoded.ipix + 1) * span;
+    covered += span;
+    const area = pixelAreaSr(o);
     const v = values[i] ?? 0;
     probability[i] = kind === "density" ? v * area : v;
     densityPerSr[i] = kind === "density" ? v : v / area;
   }
+  checkDisjoint(starts, ends);
+  const fraction = covered / (12 * 4 ** MAX_ORDER);
+  if (fraction < 1 - 1e-12) warnings.push(`multi-order pixels cover only ${(100 * fraction).toFixed(2)} % of the sky`);
   const { total, normalised } = normalise(probability, warnings, densityPerSr);
 
   const map: MultiOrderSkymap = { layout: "multiorder", maxOrder, order, ipix, probability, densityPerSr };
@@ -48,30 +56,17 @@ export function buildMultiOrder(
 }
 
 /**
- * Each pixel is the index range [ipix·4^(M−o), (ipix+1)·4^(M−o)) at the finest order M. Sorting starts
- * and ends separately, the ranges are disjoint iff start(i+1) ≥ end(i) for every i.
+ * Pixels are index ranges [start, end) at one fine order. Sorting starts and ends separately, the
+ * ranges are disjoint iff start(i+1) ≥ end(i) for every i (coverage never reaches 2).
  */
-function checkDisjoint(order: Uint8Array, ipix: Float64Array, maxOrder: number, warnings: string[]): void {
-  const count = order.length;
-  const starts = new Float64Array(count);
-  const ends = new Float64Array(count);
-  let covered = 0;
-  for (let i = 0; i < count; i++) {
-    const span = 4 ** (maxOrder - (order[i] ?? 0));
-    const start = (ipix[i] ?? 0) * span;
-    starts[i] = start;
-    ends[i] = start + span;
-    covered += span;
-  }
+function checkDisjoint(starts: Float64Array, ends: Float64Array): void {
   starts.sort();
   ends.sort();
-  for (let i = 0; i + 1 < count; i++) {
+  for (let i = 0; i + 1 < starts.length; i++) {
     if ((starts[i + 1] ?? 0) < (ends[i] ?? 0)) {
       throw new SkymapError("bad-uniq", "multi-order pixels overlap (a UNIQ repeats or nests inside another)");
     }
   }
-  const fraction = covered / (12 * 4 ** maxOrder);
-  if (fraction < 1 - 1e-12) warnings.push(`multi-order pixels cover only ${(100 * fraction).toFixed(2)} % of the sky`);
 }
 
 const centreCache = new WeakMap<MultiOrderSkymap, Float64Array>();

@@ -138,6 +138,15 @@ describe("unusual but valid files (tests/fixtures/skymap/variants)", () => {
     expect(analyse("variants/no-coordsys.fits").summary.warnings).toContain("COORDSYS missing; assumed equatorial (C)");
   });
 
+  it("warns when multi-order pixels leave part of the sky uncovered", () => {
+    // covered fraction computed by the fixture script: Σ 4^-order / 12 over the 200 rows kept
+    const { coveredFraction } = JSON.parse(new TextDecoder().decode(fixtureBytes("variants/multiorder-partial.json"))) as {
+      coveredFraction: number;
+    };
+    const { summary } = analyse("variants/multiorder-partial.fits");
+    expect(summary.warnings).toContain(`multi-order pixels cover only ${(100 * coveredFraction).toFixed(2)} % of the sky`);
+  });
+
   it("reads a multi-order map with PROB per pixel like the same map with PROBDENSITY", () => {
     const byProb = analyse("variants/multiorder-prob.fits.gz");
     const byDensity = analyse("bimodal-multiorder.fits.gz");
