@@ -23,9 +23,13 @@ export function nsideToOrder(nside: number): number | undefined {
   return 2 ** order === nside ? order : undefined;
 }
 
+/** 4^order for order 0 … MAX_ORDER, exact; a table because Math.pow is slow in per-pixel loops. */
+export const POW4 = Float64Array.from({ length: MAX_ORDER + 1 }, (_, order) => 4 ** order);
+const AREA_SR = POW4.map((p) => Math.PI / (3 * p));
+
 /** Pixel solid angle at an order: 4π / (12 · 4^order) sr (Górski et al. 2005, §4). */
 export function pixelAreaSr(order: number): number {
-  return Math.PI / (3 * 4 ** order);
+  return AREA_SR[order] ?? Math.PI / (3 * 4 ** order);
 }
 
 export const SR_TO_DEG2 = (180 / Math.PI) ** 2;
@@ -51,11 +55,16 @@ const TWO_POW_32 = 4294967296;
  * order = ⌊(⌊log2 uniq⌋ − 2) / 2⌋. Returns undefined for values that are not a valid uniq ≤ MAX_ORDER.
  */
 export function decodeUniq(uniq: number): { order: number; ipix: number } | undefined {
-  if (!Number.isSafeInteger(uniq) || uniq < 4) return undefined;
+  const order = uniqOrder(uniq);
+  return order < 0 ? undefined : { order, ipix: uniq - 4 * (POW4[order] ?? 0) };
+}
+
+/** The order of a NUNIQ value, or −1 when it is not one (allocation-free form of decodeUniq). */
+export function uniqOrder(uniq: number): number {
+  if (!Number.isSafeInteger(uniq) || uniq < 4) return -1;
   const log2 = uniq < TWO_POW_32 ? 31 - Math.clz32(uniq) : 63 - Math.clz32(Math.floor(uniq / TWO_POW_32));
   const order = (log2 - 2) >> 1;
-  if (order > MAX_ORDER) return undefined;
-  return { order, ipix: uniq - 4 * 4 ** order };
+  return order > MAX_ORDER ? -1 : order;
 }
 
 function spreadBits16(v: number): number {

@@ -1,5 +1,5 @@
 import { SkymapError } from "./errors";
-import { decodeUniq, MAX_ORDER, nestCentreVec, pixelAreaSr } from "./healpix";
+import { MAX_ORDER, nestCentreVec, pixelAreaSr, POW4, uniqOrder } from "./healpix";
 import { normalise } from "./validate";
 import type { MultiOrderSkymap } from "./types";
 
@@ -26,20 +26,20 @@ export function buildMultiOrder(
   let covered = 0;
   for (let i = 0; i < count; i++) {
     const value = uniq[i] ?? -1;
-    const decoded = decodeUniq(value);
-    if (!decoded) {
+    const o = uniqOrder(value);
+    if (o < 0) {
       throw new SkymapError(
         "bad-uniq",
         `UNIQ value ${value} in row ${i + 1} is not a NUNIQ index (4·4^order + ipix, order ≤ 24)`,
       );
     }
-    const o = decoded.order;
+    const pix = value - 4 * (POW4[o] ?? 0);
     order[i] = o;
-    ipix[i] = decoded.ipix;
+    ipix[i] = pix;
     if (o > maxOrder) maxOrder = o;
-    const span = 4 ** (MAX_ORDER - o);
-    starts[i] = decoded.ipix * span;
-    ends[i] = (decoded.ipix + 1) * span;
+    const span = POW4[MAX_ORDER - o] ?? 0;
+    starts[i] = pix * span;
+    ends[i] = (pix + 1) * span;
     covered += span;
     const area = pixelAreaSr(o);
     const v = values[i] ?? 0;
