@@ -4,7 +4,7 @@ import { candidateRevisions, candidates, derivedQuantities, followUpTasks, type 
 import { headlineFromDerived, diffHeadlines, type DerivedHeadline, type RevisionHeadline } from "@/lib/feed/headline";
 import { derivationSeed, revisionHeadline, toPhysicsInput } from "@/lib/feed/physics-input";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
+import { createGroupCommitter } from "@/lib/feed/group-commit";
 import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
 import { computeDerived } from "@/lib/physics";
 import type { FeedCandidate } from "@/lib/validations/feed";
@@ -31,8 +31,9 @@ const withdrawalReason = "the feed withdrew the candidate";
 
 /**
  * Stores one validated feed revision: candidate, revision, derived quantities, events and paging hooks in one
- * write transaction. Idempotent on (source, externalId, revision): a repeat answers the stored result, writing
- * nothing. The physics runs before the transaction so the write lock is held only for the writes.
+ * write transaction (its own savepoint inside a group commit). Idempotent on (source, externalId, revision): a
+ * repeat answers the stored result, writing nothing. The physics runs first, so the write lock is held only for
+ * the writes.
  */
 export async function ingestCandidate(payload: FeedCandidate, receivedAt: Date): Promise<IngestResult> {
   const db = await getDb();
@@ -43,7 +44,7 @@ export async function ingestCandidate(payload: FeedCandidate, receivedAt: Date):
   const derived = computed as unknown as Record<string, unknown>;
   for (let attempt = 1; ; attempt++) {
     try {
-      return await withWriteLock(() => db.transaction((tx) => writeRevision(tx, payload, derived, receivedAt)));
+      return await writeInGroup({ payload, derived, receivedAt });
     } catch (error) {
       if (!isUniqueViolation(error) || attempt >= 3) throw error;
       // Another process stored this candidate or revision between our read and our write: read again.
@@ -52,6 +53,17 @@ export async function ingestCandidate(payload: FeedCandidate, receivedAt: Date):
     }
   }
 }
+
+interface PendingRevision {
+  payload: FeedCandidate;
+  derived: Record<string, unknown>;
+  receivedAt: Date;
+}
+
+// One writer per module instance; concurrent posts share a commit (see lib/feed/group-commit.ts).
+const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>((tx, pending) =>
+  writeRevision(tx, pending.payload, pending.derived, pending.receivedAt),
+);
 
 /** The stored answer for (source, externalId, revision), or null. */
 export async function findStoredAnswer(q: Tx, payload: Pick<FeedCandidate, "source" | "externalId" | "revision">) {
@@ -74,7 +86,7 @@ async function writeRevision(
   derived: Record<string, unknown>,
   at: Date,
 ): Promise<IngestResult> {
-  // Inside the write lock nobody else can write, so this read decides for good.
+  // Inside the write transaction nobody else can write, so this read decides for good.
   const stored = await findStoredAnswer(tx, payload);
   if (stored) return { status: 200, outcome: "duplicate", answer: stored };
   const [existing] = await tx
