@@ -286,3 +286,12 @@ export async function listCandidateAudit(candidateId: string, limit = 500): Prom
     data: e.data,
   }));
 }
+
+/** Names for user ids mentioned in event data (e.g. a new owner), in one query. */
+export async function loadPeople(ids: Array<string | null | undefined>): Promise<Map<string, PersonRef>> {
+  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
+  if (wanted.length === 0) return new Map();
+  const db = await getDb();
+  const rows = await db.select({ id: users.id, name: users.name, initials: users.initials }).from(users).where(inArray(users.id, wanted));
+  return new Map(rows.map((row) => [row.id, row]));
+}

@@ -1,0 +1,130 @@
+import { Ban } from "lucide-react";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { AuditLog } from "@/components/candidate/audit-log";
+import { CandidateLiveRefresh } from "@/components/candidate/candidate-live-refresh";
+import { CandidateTriagePanel } from "@/components/candidate/candidate-triage-panel";
+import { Caution } from "@/components/candidate/caution";
+import { ClassTable } from "@/components/candidate/class-bar";
+import { KeyNumbers, MergerFrequencyTable } from "@/components/candidate/key-numbers";
+import { NotesThread } from "@/components/candidate/notes-thread";
+import { RevisionTimeline } from "@/components/candidate/revision-timeline";
+import { SkymapSlot } from "@/components/candidate/skymap-slot";
+import { StageBadge } from "@/components/candidate/stage-badge";
+import { TasksPanel } from "@/components/candidate/tasks-panel";
+import { trackSeries } from "@/components/candidate/track-data";
+import { TrackPlot } from "@/components/candidate/track-plot";
+import { Panel, PanelTitle } from "@/components/ui/panel";
+import { can, hasRole } from "@/lib/auth/roles";
+import { requirePageUser } from "@/lib/auth/session";
+import { getCandidateDetail } from "@/lib/data/candidate-detail";
+import { listCandidateAudit, listNotes, loadPeople } from "@/lib/data/candidates";
+import { listSiteOptions } from "@/lib/data/tasks";
+import { formatInZone } from "@/lib/format/time";
+import type { Derived } from "@/lib/physics/derived-types";
+
+export const dynamic = "force-dynamic";
+
+export async function generateMetadata({ params }: { params: Promise<{ id: string }> }) {
+  const detail = await getCandidateDetail((await params).id);
+  return { title: detail ? `Candidate ${detail.externalId}` : "Candidate not found" };
+}
+
+export default async function CandidatePage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePageUser();
+  const { id } = await params;
+  const detail = await getCandidateDetail(id);
+  if (!detail) notFound();
+  const [audit, notes, sites] = await Promise.all([listCandidateAudit(id), listNotes(id), listSiteOptions()]);
+  const people = await loadPeople(audit.map((e) => (typeof e.data?.ownerId === "string" ? e.data.ownerId : null)));
+  // The stored derived JSON has the Derived shape (lib/physics); every block may be null, so it is read defensively.
+  const derived = detail.derived as Partial<Derived>;
+  const withdrawn = detail.state.stage === "withdrawn" || detail.state.withdrawnAt !== null;
+  const series = trackSeries(derived.plot, detail.payload.frequencyTrack);
+  const tz = user.timeZone;
+  return (
+    <div className="space-y-4" data-testid="candidate-page">
+      <CandidateLiveRefresh candidateId={detail.id} />
+      <header className="flex flex-wrap items-center gap-3">
+        <Link href="/candidates" className="text-sm text-muted hover:text-fg">
+          Candidates /
+        </Link>
+        <h1 className="font-mono text-xl font-semibold">{detail.externalId}</h1>
+        <StageBadge stage={detail.state.stage} />
+        <span className="text-sm text-muted">
+          revision {detail.revision} · from {detail.source}
+        </span>
+      </header>
+      {withdrawn ? (
+        <p role="alert" className="flex items-center gap-2 rounded-md border border-alarm/50 bg-alarm/10 px-3 py-2 text-sm">
+          <Ban aria-hidden className="h-4 w-4 text-alarm" />
+          <span>
+            <strong>Withdrawn by the feed</strong>
+            {detail.state.withdrawnAt ? ` at ${formatInZone(detail.state.withdrawnAt, tz)}` : ""}. Its open follow-up tasks were cancelled.
+          </span>
+        </p>
+      ) : null}
+      <Caution />
+      <div className="grid gap-4 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <div className="space-y-4">
+          <Panel>
+            <PanelTitle>Key numbers</PanelTitle>
+            <KeyNumbers detail={detail} derived={derived} timeZone={tz} />
+          </Panel>
+          <Panel>
+            <PanelTitle>Frequency track and fitted chirp</PanelTitle>
+            <TrackPlot series={series} />
+          </Panel>
+          <SkymapSlot candidateId={detail.id} revision={detail.revision} timeZone={tz} />
+          <Panel>
+            <PanelTitle>Revisions</PanelTitle>
+            <RevisionTimeline revisions={detail.revisions} timeZone={tz} />
+          </Panel>
+          <Panel>
+            <PanelTitle>Audit log</PanelTitle>
+            <AuditLog entries={audit} people={people} timeZone={tz} />
+          </Panel>
+        </div>
+        <div className="space-y-4">
+          <Panel>
+            <PanelTitle>Triage</PanelTitle>
+            <CandidateTriagePanel
+              state={{
+                id: detail.id,
+                externalId: detail.externalId,
+                triageState: detail.state.triageState,
+                version: detail.state.version,
+                withdrawn,
+                owner: detail.state.owner,
+                acknowledgedAt: detail.state.acknowledgedAt?.getTime() ?? null,
+                acknowledgedBy: detail.state.acknowledgedBy?.name ?? null,
+                decidedAt: detail.state.decidedAt?.getTime() ?? null,
+                dismissReason: detail.state.dismissReason,
+              }}
+              canTriage={hasRole(user, can.triage)}
+              canPlan={hasRole(user, can.planFollowUp)}
+              sites={sites}
+              timeZone={tz}
+            />
+          </Panel>
+          <Panel>
+            <PanelTitle>Source class</PanelTitle>
+            <ClassTable p={derived.classProbabilities ?? null} />
+          </Panel>
+          <Panel>
+            <PanelTitle>Merger and ringdown</PanelTitle>
+            <MergerFrequencyTable derived={derived} />
+          </Panel>
+          <Panel>
+            <PanelTitle>Follow-up tasks</PanelTitle>
+            <TasksPanel candidateId={detail.id} tasks={detail.tasks} timeZone={tz} />
+          </Panel>
+          <Panel>
+            <PanelTitle>Notes</PanelTitle>
+            <NotesThread candidateId={detail.id} initialNotes={notes} timeZone={tz} />
+          </Panel>
+        </div>
+      </div>
+    </div>
+  );
+}
