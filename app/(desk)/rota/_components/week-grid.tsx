@@ -74,7 +74,8 @@ export function WeekGrid({
                     title={`${s.primary.name}${s.backup ? ` (backup ${s.backup.name})` : ""}\n${isoUtc(s.startMs)} – ${isoUtc(s.endMs)} UTC${overlap ? "\nOverlaps another shift" : ""}`}
                     className={cn(
                       "absolute overflow-hidden rounded border px-1 py-0.5 text-left text-[11px] leading-tight",
-                      overlap ? "border-warn bg-warn/15" : "border-accent/50 bg-accent/15",
+                      "border-l-[3px] bg-raised",
+                      overlap ? "border-warn" : "border-accent/60",
                       seg.continuesBefore && "rounded-t-none",
                       seg.continuesAfter && "rounded-b-none",
                       onSelect && "hover:brightness-125",
