@@ -1,0 +1,104 @@
+import type { Locator, Page } from "playwright-core";
+import { candidatePayload } from "../boards/helpers/payload";
+import { check, type E2EContext } from "./types";
+
+/**
+ * Triage board in Chromium: drag a card with the mouse and with the keyboard, see both persist after a reload,
+ * watch a second browser pick the changes up live, and dismiss through the card's menu.
+ */
+export default async function boardsE2E(ctx: E2EContext): Promise<void> {
+  const tag = Date.now().toString(36).toUpperCase();
+  const names = { mouse: `EM${tag}`, keys: `EK${tag}`, menu: `EN${tag}` };
+  for (const externalId of Object.values(names)) {
+    const res = await ctx.postCandidate(candidatePayload({ externalId, eventTime: new Date() }));
+    check(res.status === 201, `feed post for ${externalId} answered ${res.status}: ${JSON.stringify(res.body)}`);
+  }
+
+  const shifter = await ctx.launchBrowser();
+  const watcher = await ctx.launchBrowser();
+  try {
+    const page = await shifter.context.newPage();
+    await ctx.signIn(page, "ada@chirpdesk.test", "demo-shifter");
+    await openBoard(page, ctx.baseUrl);
+    const other = await watcher.context.newPage();
+    await ctx.signIn(other, "cleo@chirpdesk.test", "demo-coordinator");
+    await openBoard(other, ctx.baseUrl);
+    await other.locator('[data-testid=live-status][data-status=live]').waitFor({ timeout: 15_000 });
+
+    // Mouse: New → Acknowledged.
+    const mouseCard = card(page, names.mouse);
+    await mouseCard.waitFor();
+    check((await columnOf(mouseCard)) === "new", "a fresh candidate starts in New");
+    await dragWithMouse(page, mouseCard.getByTestId("card-handle"), page.locator('[data-column="acknowledged"]'));
+    await card(page, names.mouse, "acknowledged").waitFor({ timeout: 10_000 });
+    ctx.log("mouse drag moved the card to Acknowledged");
+    await card(other, names.mouse, "acknowledged").waitFor({ timeout: 15_000 });
+    ctx.log("the second browser saw it live");
+
+    // Keyboard: New → (Acknowledged) → In review, with spoken announcements.
+    const keyHandle = card(page, names.keys).getByTestId("card-handle");
+    await keyHandle.focus();
+    await page.keyboard.press("Space");
+    await page.keyboard.press("ArrowRight");
+    await page.keyboard.press("ArrowRight");
+    const liveRegion = page.locator('[id^="DndLiveRegion"]');
+    await page.waitForFunction(() => /In review/.test(document.querySelector('[id^="DndLiveRegion"]')?.textContent ?? ""), undefined, { timeout: 5_000 });
+    await page.keyboard.press("Space");
+    await card(page, names.keys, "reviewing").waitFor({ timeout: 10_000 });
+    const spoken = (await liveRegion.textContent()) ?? "";
+    check(/dropped on column In review/.test(spoken), `the drop was announced; heard “${spoken}”`);
+    ctx.log("keyboard drag moved the card to In review and was announced");
+    await card(other, names.keys, "reviewing").waitFor({ timeout: 15_000 });
+
+    // The button equivalent: ⋯ → Dismissed → reason.
+    await card(page, names.menu).getByTestId("card-actions").click();
+    await page.getByRole("dialog").getByRole("button", { name: "Dismissed" }).click();
+    await page.locator("#dismiss-reason").fill("scattered light in N1");
+    await page.getByRole("dialog").getByRole("button", { name: "Dismiss" }).click();
+    await card(page, names.menu, "dismissed").waitFor({ timeout: 10_000 });
+    ctx.log("the card menu dismissed a candidate with a reason");
+
+    // Everything persists across a reload.
+    await page.reload();
+    await openBoard(page, ctx.baseUrl, false);
+    await card(page, names.mouse, "acknowledged").waitFor();
+    await card(page, names.keys, "reviewing").waitFor();
+    await card(page, names.menu, "dismissed").waitFor();
+    ctx.log("all three moves persisted after a reload");
+  } catch (error) {
+    for (const [name, browser] of [["shifter", shifter], ["watcher", watcher]] as const) {
+      const open = browser.context.pages()[0];
+      if (open) await open.screenshot({ path: `${ctx.artifactsDir}/boards-${name}.png`, fullPage: true }).catch(() => undefined);
+    }
+    throw error;
+  } finally {
+    await shifter.close();
+    await watcher.close();
+  }
+}
+
+async function openBoard(page: Page, baseUrl: string, navigate = true): Promise<void> {
+  if (navigate) await page.goto(`${baseUrl}/triage`);
+  await page.locator('[data-testid=triage-board][data-board-ready="true"]').waitFor({ timeout: 30_000 });
+}
+
+function card(page: Page, externalId: string, column?: string): Locator {
+  const scope = column ? page.locator(`[data-column="${column}"]`) : page;
+  return scope.getByTestId("triage-card").filter({ has: page.getByRole("link", { name: externalId, exact: true }) });
+}
+
+async function columnOf(locator: Locator): Promise<string | null> {
+  return locator.evaluate((el) => el.closest("[data-column]")?.getAttribute("data-column") ?? null);
+}
+
+async function dragWithMouse(page: Page, handle: Locator, target: Locator): Promise<void> {
+  const from = await handle.boundingBox();
+  const to = await target.boundingBox();
+  check(from && to, "drag source and target are on screen");
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  // Past the 5 px activation distance first, then across in steps so dnd-kit sees the pointer travel.
+  await page.mouse.move(from.x + from.width / 2 + 12, from.y + from.height / 2 + 4, { steps: 4 });
+  await page.mouse.move(to.x + to.width / 2, to.y + 120, { steps: 12 });
+  await page.mouse.up();
+}
