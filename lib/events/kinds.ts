@@ -19,6 +19,8 @@ export const eventKinds = {
   escalationFired: "escalation.fired", // data: { step, target }
   notificationFailed: "notification.failed", // data: { notificationId, channel, userId }
   skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
+  reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }
+  siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }
   shiftChanged: "shift.changed", // data: { shiftId, action: "created" | "updated" | "deleted" }
   settingsChanged: "settings.changed", // data: { key }
   userChanged: "user.changed", // data: { userId, action }

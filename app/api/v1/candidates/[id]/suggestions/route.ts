@@ -1,0 +1,6 @@
+import { handler } from "@/lib/api/handler";
+import { can } from "@/lib/auth/roles";
+import { suggestTasks } from "@/lib/data/visibility";
+
+/** Suggested follow-up tasks for the planning dialog: the sites with the most observable probability. */
+export const GET = handler({ roles: can.planFollowUp }, async ({ params }) => suggestTasks(params.id ?? "", new Date()));

@@ -1,0 +1,8 @@
+import { handler } from "@/lib/api/handler";
+import { can } from "@/lib/auth/roles";
+import { candidateVisibility } from "@/lib/data/visibility";
+
+/** What each site can observe of the candidate's newest sky map during its coming astronomical night. */
+export const GET = handler({ roles: can.read }, async ({ params }) => ({
+  visibility: await candidateVisibility(params.id ?? "", new Date()),
+}));
