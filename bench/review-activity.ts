@@ -51,7 +51,7 @@ export async function writeYearOfActivity(client: Client, size: ActivitySize, en
   const people = [...shifters, ...observers, ...coordinators];
   await bulkInsert(client, "users", ["id", "email", "name", "password_hash", "role", "time_zone", "initials", "created_at"],
     people.map((p, i) => [p.id, `bench${i}@example.test`, p.name, "x", p.role, "UTC", "BX", startMs]));
-  const siteIds = ["ALD", "KRN", "WLB", "TRB"].map((code, i) => ({ id: randomUUID(), code, i }));
+  const siteIds = ["BX1", "BX2", "BX3", "BX4"].map((code, i) => ({ id: randomUUID(), code, i }));
   await bulkInsert(client, "sites", ["id", "code", "name", "latitude_deg", "longitude_deg", "elevation_m", "field_of_view_deg2", "created_at"],
     siteIds.map((s) => [s.id, s.code, `Bench site ${s.code}`, -30 + s.i * 20, s.i * 40, 1000, 5, startMs]));
 
@@ -100,7 +100,10 @@ export async function writeYearOfActivity(client: Client, size: ActivitySize, en
       state = "acknowledged";
       if (rand() < 0.9) {
         let t = ackAt + logNormal(300_000, 0.8);
-        if (rand() < 0.5) ev(t, "candidate.triaged", acker, id, null, "acknowledged", "reviewing"), (state = "reviewing");
+        if (rand() < 0.5) {
+          ev(t, "candidate.triaged", acker, id, null, "acknowledged", "reviewing");
+          state = "reviewing";
+        }
         t += logNormal(300_000, 0.8);
         const decision = rand() < 0.4 ? "pursue" : rand() < 0.85 ? "dismissed" : "expert";
         ev(t, "candidate.triaged", acker, id, null, state, decision);

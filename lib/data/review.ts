@@ -212,7 +212,7 @@ export interface LiveTaskRow {
   windowEndMs: number | null;
 }
 
-/** Follow-up tasks still in play (open, claimed, observing), most urgent first, plus how many there are. */
+/** Follow-up tasks still in play (open, claimed, observing), most urgent and newest first, plus how many there are. */
 export async function loadLiveTasks(limit: number, q?: Tx): Promise<{ total: number; rows: LiveTaskRow[] }> {
   const db = q ?? (await getDb());
   const [count] = await db.all<{ n: number }>(
@@ -224,7 +224,7 @@ export async function loadLiveTasks(limit: number, q?: Tx): Promise<{ total: num
     FROM follow_up_tasks t JOIN candidates c ON c.id = t.candidate_id
       LEFT JOIN sites s ON s.id = t.site_id LEFT JOIN users u ON u.id = t.claimed_by_id
     WHERE t.state IN ('open', 'claimed', 'observing')
-    ORDER BY t.priority, t.created_at
+    ORDER BY t.priority, t.created_at DESC
     LIMIT ${limit}`);
   return { total: count?.n ?? 0, rows };
 }

@@ -21,3 +21,27 @@ export function formatMinutes(minutes: number): string {
 }
 
 const pad = (n: number) => String(n).padStart(2, "0");
+
+/** A short axis label: "45 s", "3.8 min", "2.5 h", "4 d" (one decimal at most). */
+export function formatDurationAxis(ms: number): string {
+  const one = (x: number) => String(Number(x.toFixed(1)));
+  const abs = Math.abs(ms);
+  if (abs < 60_000) return `${one(ms / 1000)} s`;
+  if (abs < 3_600_000) return `${one(ms / 60_000)} min`;
+  if (abs < 48 * 3_600_000) return `${one(ms / 3_600_000)} h`;
+  return `${one(ms / 86_400_000)} d`;
+}
+
+/** Steps people count in: seconds, minutes, hours, days. */
+const tickSteps = [1, 2, 5, 10, 15, 30, 60, 120, 300, 600, 900, 1800, 3600, 7200, 10800, 21600, 43200, 86400, 172800, 604800].map(
+  (s) => s * 1000,
+);
+
+/** Round axis ticks for durations up to `maxMs` (about five, on a step people count in), starting at 0. */
+export function niceDurationTicks(maxMs: number, target = 5): number[] {
+  if (!(maxMs > 0)) return [0];
+  const step = tickSteps.find((s) => maxMs / s <= target) ?? Math.ceil(maxMs / target / 604_800_000) * 604_800_000;
+  const ticks: number[] = [];
+  for (let t = 0; t < maxMs + step; t += step) ticks.push(t);
+  return ticks;
+}

@@ -3,7 +3,6 @@ import { getDb } from "@/db";
 import { notifications, shifts } from "@/db/schema";
 import type { Tx } from "@/lib/data/events";
 import { loadDecisions, loadHandoffRecipients, loadLiveTasks, loadShift } from "@/lib/data/review";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { appBaseUrl } from "@/lib/notify/links";
 import { buildHandoffSummary, handoffText, type HandoffSummary } from "./handoff-summary";
 import { loadReviewScope } from "./report";
@@ -52,29 +51,27 @@ export async function queueDueHandoffs(now: Date): Promise<QueuedHandoffs> {
   const db = await getDb();
   const nowMs = now.getTime();
   const base = appBaseUrl();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
-      const due = await tx
-        .select({ id: shifts.id, endsAt: shifts.endsAt })
-        .from(shifts)
-        .where(and(isNull(shifts.handoffQueuedAt), lte(shifts.endsAt, now)))
-        .orderBy(shifts.endsAt)
-        .limit(batchSize);
-      const result: QueuedHandoffs = { shiftIds: [], rows: 0 };
-      for (const shift of due) {
-        const marked = await tx
-          .update(shifts)
-          .set({ handoffQueuedAt: now })
-          .where(and(eq(shifts.id, shift.id), isNull(shifts.handoffQueuedAt)))
-          .returning({ id: shifts.id });
-        if (marked.length === 0) continue;
-        result.shiftIds.push(shift.id);
-        if (nowMs - shift.endsAt.getTime() > staleHandoffMs) continue;
-        result.rows += await queueShiftHandoff(tx, shift.id, nowMs, base);
-      }
-      return result;
-    }),
-  );
+  return db.transaction(async (tx) => {
+    const due = await tx
+      .select({ id: shifts.id, endsAt: shifts.endsAt })
+      .from(shifts)
+      .where(and(isNull(shifts.handoffQueuedAt), lte(shifts.endsAt, now)))
+      .orderBy(shifts.endsAt)
+      .limit(batchSize);
+    const result: QueuedHandoffs = { shiftIds: [], rows: 0 };
+    for (const shift of due) {
+      const marked = await tx
+        .update(shifts)
+        .set({ handoffQueuedAt: now })
+        .where(and(eq(shifts.id, shift.id), isNull(shifts.handoffQueuedAt)))
+        .returning({ id: shifts.id });
+      if (marked.length === 0) continue;
+      result.shiftIds.push(shift.id);
+      if (nowMs - shift.endsAt.getTime() > staleHandoffMs) continue;
+      result.rows += await queueShiftHandoff(tx, shift.id, nowMs, base);
+    }
+    return result;
+  });
 }
 
 async function queueShiftHandoff(tx: Tx, shiftId: string, nowMs: number, base: string): Promise<number> {

@@ -77,7 +77,8 @@ export async function buildReviewReport(req: ReviewRequest): Promise<ReviewRepor
     steps: summariseSteps(rows),
     histograms,
     trend: weeklyTrend(rows, scope.fromMs, Math.min(scope.toMs, req.nowMs + 1), req.timeZone),
-    shifts: shiftRows(rows, req.shiftId ? shifts.filter((s) => s.id === req.shiftId) : shifts),
+    // Shifts not yet begun have nothing to show.
+    shifts: shiftRows(rows, shifts.filter((s) => s.startsAtMs <= req.nowMs && (!req.shiftId || s.id === req.shiftId))),
     people: personRows(rows, people),
   };
 }

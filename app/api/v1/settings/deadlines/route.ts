@@ -4,7 +4,6 @@ import { can } from "@/lib/auth/roles";
 import { appendEvent } from "@/lib/data/events";
 import { getSetting, putSetting } from "@/lib/data/settings";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { deadlinesSchema } from "@/lib/validations/review";
 
 /** GET /api/v1/settings/deadlines — every step deadline and the board's timers, in minutes. */
@@ -16,11 +15,9 @@ export const GET = handler({ roles: can.read }, async () => getSetting("deadline
  */
 export const PUT = handler({ roles: can.manageSettings, body: deadlinesSchema }, async ({ user, body }) => {
   const db = await getDb();
-  await withWriteLock(() =>
-    db.transaction(async (tx) => {
-      await putSetting("deadlines", body, user.id, tx);
-      await appendEvent(tx, { kind: eventKinds.settingsChanged, actorId: user.id, data: { key: "deadlines" } });
-    }),
-  );
+  await db.transaction(async (tx) => {
+    await putSetting("deadlines", body, user.id, tx);
+    await appendEvent(tx, { kind: eventKinds.settingsChanged, actorId: user.id, data: { key: "deadlines" } });
+  });
   return getSetting("deadlines");
 });
