@@ -111,7 +111,15 @@ export async function skymapVisibility(skymap: { id: string; sha256: string }, n
     const site = siteFields(record);
     rows.push(toRow(site, await visibilityFor(skymap.sha256, site, now)));
   }
-  rows.sort((a, b) => b.observableProbability - a.observableProbability || a.site.code.localeCompare(b.site.code));
+  // most of the region first; then most at one instant; then the sooner window (a kilonova fades within days)
+  const windowStart = (r: SiteVisibilityRow) => (r.bestWindow ? Date.parse(r.bestWindow.start) : Number.POSITIVE_INFINITY);
+  rows.sort(
+    (a, b) =>
+      b.observableProbability - a.observableProbability ||
+      (b.bestWindow?.probabilityAboveLimit ?? 0) - (a.bestWindow?.probabilityAboveLimit ?? 0) ||
+      windowStart(a) - windowStart(b) ||
+      a.site.code.localeCompare(b.site.code),
+  );
   return { skymapId: skymap.id, computedAt: now.toISOString(), level: REGION_LEVEL, rows };
 }
 
@@ -191,7 +199,7 @@ export async function suggestTasks(candidateId: string, now: Date, options: Sugg
       kind,
       windowStart: window.start,
       windowEnd: window.end,
-      priority: rank === 0 && row.observableProbability >= 0.5 ? 1 : rank < 2 ? 2 : 3,
+      priority: row.observableProbability >= 0.5 ? (rank === 0 ? 1 : 2) : 3,
       notes:
         `Suggested from the sky map: ${pct(row.observableProbability)} of the 90 % region rises above ${row.site.minAltitudeDeg}° ` +
         `during the coming night; up to ${pct(window.probabilityAboveLimit)} at once in this window.${cover}${moon}`,
