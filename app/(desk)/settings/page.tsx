@@ -1,3 +1,4 @@
+import { PagingSettings } from "@/components/paging/paging-settings";
 import { ApiTokens } from "@/components/settings/api-tokens";
 import { ProfileForm } from "@/components/settings/profile-form";
 import { PageHeader } from "@/components/ui/page-header";
@@ -14,6 +15,10 @@ export default async function SettingsPage() {
       <Panel>
         <PanelTitle>Profile</PanelTitle>
         <ProfileForm name={user.name} timeZone={user.timeZone} />
+      </Panel>
+      <Panel>
+        <PanelTitle>How you are paged</PanelTitle>
+        <PagingSettings role={user.role} />
       </Panel>
       <Panel>
         <PanelTitle>API tokens</PanelTitle>
