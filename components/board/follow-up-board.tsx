@@ -4,7 +4,7 @@ import { DndContext, DragOverlay, KeyboardSensor, PointerSensor, useSensor, useS
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { usePathname, useRouter } from "next/navigation";
-import { useMemo, useRef, useState } from "react";
+import { useMemo, useState } from "react";
 import { queryKeys } from "@/components/live/query-keys";
 import { taskStates, type TaskState } from "@/db/schema/tasks";
 import { apiFetch } from "@/lib/api-client";
@@ -43,7 +43,7 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
   const pathname = usePathname();
   const [filters, setFilters] = useState(initialFilters);
   const query = toQuery(filters);
-  const initialQuery = useRef(toQuery(initialFilters)).current;
+  const [initialQuery] = useState(() => toQuery(initialFilters));
   const { data: tasks = [] } = useQuery({
     queryKey: [...queryKeys.tasks, query],
     queryFn: () => apiFetch<TaskCard[]>(`/api/v1/tasks?${query}`),
@@ -74,8 +74,7 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
     else if (to === "open" || to === "observing") mutation.mutate({ task, move: { kind: "state", to } });
   };
 
-  const orderRef = useRef<UniqueIdentifier[]>(taskStates.map((s) => `column:${s}`));
-  const [keyboard] = useState(() => createKeyboardTargets(() => orderRef.current));
+  const [keyboard] = useState(() => createKeyboardTargets(taskStates.map((s): UniqueIdentifier => `column:${s}`)));
   const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 5 } }), useSensor(KeyboardSensor, { coordinateGetter: keyboard.coordinateGetter }));
   const active = activeId ? byId.get(activeId) : undefined;
   const activeActions = active ? taskActionsFor(active, viewer) : [];

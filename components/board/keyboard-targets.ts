@@ -5,15 +5,16 @@ import { KeyboardCode, pointerWithin, rectIntersection, type CollisionDetection,
  * order (the columns, then the people on call), left/up to the previous one. The chosen target is remembered so the
  * collision check agrees with what the announcement said.
  */
-export function createKeyboardTargets(order: () => UniqueIdentifier[]) {
+export function createKeyboardTargets(initialOrder: UniqueIdentifier[] = []) {
   let target: UniqueIdentifier | null = null;
+  let order = initialOrder;
 
   const coordinateGetter: KeyboardCoordinateGetter = (event, { context }) => {
     const forward = event.code === KeyboardCode.Right || event.code === KeyboardCode.Down;
     const backward = event.code === KeyboardCode.Left || event.code === KeyboardCode.Up;
     if (!forward && !backward) return undefined;
     event.preventDefault();
-    const ids = order().filter((id) => context.droppableRects.has(id));
+    const ids = order.filter((id) => context.droppableRects.has(id));
     if (ids.length === 0) return undefined;
     const current = target ?? context.over?.id ?? null;
     const index = current === null ? -1 : ids.indexOf(current);
@@ -36,6 +37,10 @@ export function createKeyboardTargets(order: () => UniqueIdentifier[]) {
   };
 
   return {
+    /** the drop targets in keyboard order; set again when they change (e.g. the roster) */
+    setOrder(next: UniqueIdentifier[]) {
+      order = next;
+    },
     coordinateGetter,
     collisionDetection,
     begin(start: UniqueIdentifier | null) {

@@ -14,7 +14,7 @@ import {
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useState, useSyncExternalStore } from "react";
 import { toast } from "sonner";
 import { stageLabels } from "@/components/candidate/stage-badge";
 import { useLiveEvents } from "@/components/live/live-store";
@@ -40,6 +40,13 @@ import { useTriageMutations } from "./use-triage-mutations";
 // Forms load on first use, keeping the board's first-load script small.
 const DismissDialog = dynamic(() => import("./dismiss-dialog"), { ssr: false });
 const PlanFollowUpDialog = dynamic(() => import("./plan-follow-up-dialog"), { ssr: false });
+
+const noSubscription = () => () => undefined;
+
+/** false while rendering on the server and hydrating, true once the board is live in the browser. */
+function useHydrated(): boolean {
+  return useSyncExternalStore(noSubscription, () => true, () => false);
+}
 
 interface Viewer {
   id: string;
@@ -72,10 +79,9 @@ export function TriageBoard({
   const [actionsFor, setActionsFor] = useState<string | null>(null);
   const [dismissing, setDismissing] = useState<Pending | null>(null);
   const [planning, setPlanning] = useState<Pending | null>(null);
-  const [ready, setReady] = useState(false);
+  const ready = useHydrated();
 
   useEffect(() => setServerNow(board.serverNow), [board.serverNow]);
-  useEffect(() => setReady(true), []);
 
   const byId = useMemo(() => new Map(board.cards.map((c) => [c.id, c])), [board.cards]);
   const columns = useMemo(() => {
@@ -86,9 +92,10 @@ export function TriageBoard({
   const peopleById = useMemo(() => new Map(roster.people.map((p) => [p.id, p])), [roster.people]);
 
   // Drop-target order for keyboard dragging: columns left to right, then people.
-  const orderRef = useRef<UniqueIdentifier[]>([]);
-  orderRef.current = [...triageStates.map((s) => `column:${s}`), ...roster.people.map((p) => `person:${p.id}`)];
-  const [keyboard] = useState(() => createKeyboardTargets(() => orderRef.current));
+  const [keyboard] = useState(() => createKeyboardTargets());
+  useEffect(() => {
+    keyboard.setOrder([...triageStates.map((s): UniqueIdentifier => `column:${s}`), ...roster.people.map((p) => `person:${p.id}`)]);
+  }, [keyboard, roster.people]);
   const sensors = useSensors(
     useSensor(PointerSensor, { activationConstraint: { distance: 5 } }),
     useSensor(KeyboardSensor, { coordinateGetter: keyboard.coordinateGetter }),

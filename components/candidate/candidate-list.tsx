@@ -5,7 +5,7 @@ import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type Sortin
 import { ArrowDown, ArrowUp, ArrowUpDown, ChevronLeft, ChevronRight } from "lucide-react";
 import Link from "next/link";
 import { usePathname, useRouter } from "next/navigation";
-import { useCallback, useMemo, useRef, useState } from "react";
+import { useCallback, useMemo, useState } from "react";
 import { queryKeys } from "@/components/live/query-keys";
 import { Avatar } from "@/components/ui/avatar";
 import { Button } from "@/components/ui/button";
@@ -43,7 +43,7 @@ export function CandidateList({ initialPage, initialQuery, timeZone }: { initial
   const pathname = usePathname();
   const [query, setQuery] = useState(initialQuery);
   const qs = listQueryString(query);
-  const firstQs = useRef(listQueryString(initialQuery)).current;
+  const [firstQs] = useState(() => listQueryString(initialQuery));
   const { data, isFetching } = useQuery({
     queryKey: [...queryKeys.candidates, qs],
     queryFn: () => apiFetch<CandidateListPage>(`/api/v1/candidates?${qs}`),

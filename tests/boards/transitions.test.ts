@@ -5,13 +5,14 @@ import { candidates, events, triageStates, type Role, type TriageState } from "@
 import { POST as assignRoute } from "@/app/api/v1/candidates/[id]/assign/route";
 import { POST as triageRoute } from "@/app/api/v1/candidates/[id]/triage/route";
 import { transitionCandidate } from "@/lib/data/triage";
+import type * as Hooks from "@/lib/notify/hooks";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { callRoute, createCaller, insertCandidate, type Caller } from "./helpers/api";
 
 // Records acknowledgement hook calls; the paging area owns the real body.
 const acknowledged = vi.hoisted(() => [] as Array<{ candidateId: string; userId: string; inTransaction: boolean }>);
 vi.mock("@/lib/notify/hooks", async (importOriginal) => {
-  const original = await importOriginal<typeof import("@/lib/notify/hooks")>();
+  const original = await importOriginal<typeof Hooks>();
   return {
     ...original,
     onCandidateAcknowledged: async (tx: unknown, info: { candidateId: string; userId: string }) => {
