@@ -22,6 +22,8 @@ export const events = sqliteTable(
   },
   (t) => [
     index("events_candidate_idx").on(t.candidateId, t.id),
+    // The response-time review's first-milestone seeks (lib/data/review.ts): covers every column they read.
+    index("events_candidate_kind_idx").on(t.candidateId, t.kind, t.at, t.toState, t.fromState, t.actorId, t.taskId),
     index("events_task_idx").on(t.taskId),
     index("events_kind_at_idx").on(t.kind, t.at),
     index("events_at_idx").on(t.at),

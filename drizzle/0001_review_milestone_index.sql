@@ -1,0 +1,1 @@
+CREATE INDEX `events_candidate_kind_idx` ON `events` (`candidate_id`,`kind`,`at`,`to_state`,`from_state`,`actor_id`,`task_id`);
