@@ -21,6 +21,8 @@ export interface WorkerOptions {
   pollMs?: number;
   /** sends in flight at once */
   concurrency?: number;
+  /** how often to look for ended shifts to hand off (not urgent; each look is a write transaction) */
+  handoffEveryMs?: number;
   backoff?: BackoffOptions;
   random?: () => number;
   push?: PushSender | null;
@@ -64,12 +66,14 @@ export function createWorker(options: WorkerOptions = {}) {
   const now = options.now ?? Date.now;
   const batchSize = options.batchSize ?? 25;
   const leaseMs = options.leaseMs ?? 60_000;
-  const pollMs = options.pollMs ?? 200;
+  const pollMs = options.pollMs ?? 100;
+  const concurrency = options.concurrency ?? 8;
   const log = options.log ?? ((m: string) => console.log(`[worker ${workerId}] ${m}`));
   const senders = options.push !== undefined || options.email !== undefined ? { push: options.push ?? null, email: options.email ?? null } : sendersFromEnv();
   let running = false;
   let loop: Promise<void> | null = null;
   let wake: (() => void) | null = null;
+  let handoffsCheckedAt = Number.NEGATIVE_INFINITY;
 
   async function sendRow(row: Notification, run: WorkerRun): Promise<void> {
     const ctx: DeliveryContext = {
@@ -92,22 +96,55 @@ export function createWorker(options: WorkerOptions = {}) {
     if (outcome.status === "failed") log(`notification ${row.id} (${row.channel}) failed: ${outcome.error}`);
   }
 
-  async function runOnce(): Promise<WorkerRun> {
-    const run: WorkerRun = {
-      escalationsFired: 0,
-      escalationsCancelled: 0,
-      claimed: 0,
-      outcomes: { sent: 0, skipped: 0, retry: 0, failed: 0 },
-      leaseLost: 0,
-    };
+  const emptyRun = (): WorkerRun => ({
+    escalationsFired: 0,
+    escalationsCancelled: 0,
+    claimed: 0,
+    outcomes: { sent: 0, skipped: 0, retry: 0, failed: 0 },
+    leaseLost: 0,
+  });
+
+  async function housekeeping(run: WorkerRun): Promise<void> {
     const fired = await fireDueEscalations(workerId, new Date(now()));
-    run.escalationsFired = fired.fired;
-    run.escalationsCancelled = fired.cancelled;
+    run.escalationsFired += fired.fired;
+    run.escalationsCancelled += fired.cancelled;
+    if (now() - handoffsCheckedAt >= (options.handoffEveryMs ?? 15_000)) {
+      handoffsCheckedAt = now();
+      await queueHandoffs(new Date(now()), log);
+    }
+  }
+
+  /** One full cycle, waiting for every send (tests drive the worker this way with their own clock). */
+  async function runOnce(): Promise<WorkerRun> {
+    const run = emptyRun();
+    await housekeeping(run);
     const rows = await claimDueNotifications(workerId, new Date(now()), leaseMs, batchSize);
     run.claimed = rows.length;
-    await inPool(rows, options.concurrency ?? 8, (row) => sendRow(row, run));
-    await queueHandoffs(new Date(now()), log);
+    await inPool(rows, concurrency, (row) => sendRow(row, run));
     return run;
+  }
+
+  /**
+   * The running loop pipelines: it claims only as many rows as it has free send slots and does not wait for
+   * slow sends before claiming again, so one slow SMTP exchange never holds back the next page.
+   */
+  const inFlight = new Set<Promise<void>>();
+  async function cycle(): Promise<boolean> {
+    const run = emptyRun();
+    await housekeeping(run);
+    const room = Math.min(batchSize, concurrency - inFlight.size);
+    if (room <= 0) return false;
+    const rows = await claimDueNotifications(workerId, new Date(now()), leaseMs, room);
+    for (const row of rows) {
+      const sending: Promise<void> = sendRow(row, run)
+        .catch((error: unknown) => log(`send of ${row.id} failed: ${String(error)}`))
+        .finally(() => {
+          inFlight.delete(sending);
+          wake?.();
+        });
+      inFlight.add(sending);
+    }
+    return rows.length === room || run.escalationsFired > 0;
   }
 
   async function runLoop(): Promise<void> {
@@ -115,8 +152,7 @@ export function createWorker(options: WorkerOptions = {}) {
     while (running) {
       let busy = false;
       try {
-        const run = await runOnce();
-        busy = run.claimed >= batchSize || run.escalationsFired > 0;
+        busy = await cycle();
         failures = 0;
       } catch (error) {
         failures += 1;
@@ -132,6 +168,7 @@ export function createWorker(options: WorkerOptions = {}) {
       });
       wake = null;
     }
+    await Promise.allSettled([...inFlight]);
   }
 
   return {

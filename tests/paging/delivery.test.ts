@@ -101,4 +101,40 @@ describe("retries", () => {
     expect(ids.sort()).toEqual(sentSince.map((r) => r.id).sort());
     for (const row of waiting) expect(ids).toContain(row.id);
   });
+
+  it("retries a push service answering 503 and delivers once it recovers", async () => {
+    h.push.setDown(true, { status: 503, retryAfterSeconds: 1 });
+    const candidate = await h.postCandidate();
+    const worker = h.worker();
+    await worker.runOnce();
+    expect(h.push.messages({ subscriptionId: primaryDevice.subscriptionId })).toHaveLength(0);
+    const [waiting] = await h.rows({ userId: h.people.primary.id, channel: "push", candidateId: candidate.id });
+    expect(waiting).toMatchObject({ status: "pending", attempts: 1 });
+    expect(waiting?.lastError).toMatch(/503/);
+    h.push.setDown(false);
+    h.clock.advance(60_000);
+    await worker.runOnce();
+    await worker.runOnce();
+    expect(h.push.messages({ subscriptionId: primaryDevice.subscriptionId })).toHaveLength(1);
+    expect((await h.rows({ userId: h.people.primary.id, channel: "push", candidateId: candidate.id }))[0]?.status).toBe("sent");
+  });
+
+  it("gives up after the attempt limit: the row is failed, an event says so, coordinators see it", async () => {
+    await h.smtp.setDown(true, { mode: "reply-421" });
+    const candidate = await h.postCandidate();
+    const worker = h.worker({ maxAttempts: 3 });
+    for (let i = 0; i < 5; i++) {
+      await worker.runOnce();
+      h.clock.advance(10 * 60_000);
+    }
+    await h.smtp.setDown(false);
+    const [row] = await h.rows({ userId: h.people.primary.id, channel: "email", candidateId: candidate.id });
+    expect(row).toMatchObject({ status: "failed", attempts: 3 });
+    expect(row?.lastError).toMatch(/gave up after 3 attempts/);
+    const failedEvents = await (await getDb()).select().from(events).where(eq(events.kind, "notification.failed"));
+    expect(failedEvents.map((e) => (e.data as { notificationId: string }).notificationId)).toContain(row?.id);
+    const { listFailedNotifications } = await import("@/lib/data/paging");
+    expect((await listFailedNotifications()).map((f) => f.id)).toContain(row?.id);
+    expect(h.smtp.messages({ to: h.people.primary.email })).toHaveLength(0);
+  });
 });
