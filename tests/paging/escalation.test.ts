@@ -119,6 +119,39 @@ describe("escalation", () => {
   });
 });
 
+describe("policy rules and withdrawals", () => {
+  it("stops the timers when the feed withdraws the candidate before anyone acknowledged", async () => {
+    const start = h.clock.now();
+    const candidate = await h.postCandidate();
+    await h.postCandidate({ externalId: candidate.externalId, revision: 2, stage: "withdrawn" });
+    const timers = await (await getDb()).select().from(escalations).where(eq(escalations.candidateId, candidate.id));
+    expect(timers.map((t) => t.status)).toEqual(["cancelled", "cancelled"]);
+    h.clock.set(start + 5 * minute);
+    await h.worker().runOnce();
+    expect(await h.rows({ userId: h.people.backup.id, candidateId: candidate.id })).toHaveLength(0);
+  });
+
+  it("tells everyone on the steps in the app only when an in-app-only rule matches, with no timers", async () => {
+    await h.setPolicy({
+      steps: [
+        { target: "primary", afterMinutes: 0 },
+        { target: "backup", afterMinutes: 1 },
+      ],
+      rules: [{ name: "Noisy", stages: [], farAbovePerYear: 10, nightOnly: false, action: "in-app-only" }],
+    });
+    const candidate = await h.postCandidate({ falseAlarmRatePerYear: 50 });
+    const rows = await h.rows({ candidateId: candidate.id });
+    expect(rows.map((r) => [r.userId, r.channel]).sort()).toEqual(
+      [
+        [h.people.primary.id, "in-app"],
+        [h.people.backup.id, "in-app"],
+      ].sort(),
+    );
+    expect(rows[0]?.title).toContain("not paged: Noisy");
+    expect(await (await getDb()).select().from(escalations).where(eq(escalations.candidateId, candidate.id))).toHaveLength(0);
+  });
+});
+
 describe("acknowledge links", () => {
   async function freshLink(): Promise<string> {
     h.smtp.clear();

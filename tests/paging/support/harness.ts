@@ -72,7 +72,7 @@ export async function startHarness(options: { startMs?: number } = {}) {
     /** Posts a candidate through the feed route handler (signature, validation, ingest and the paging hook). */
     async postCandidate(overrides: Parameters<typeof pagingPayload>[2] = {}): Promise<{ id: string; externalId: string }> {
       posted += 1;
-      const externalId = `PT-${String(posted).padStart(4, "0")}`;
+      const externalId = overrides.externalId ?? `PT-${String(posted).padStart(4, "0")}`;
       const body = JSON.stringify(pagingPayload(externalId, new Date(nowMs - 20_000), overrides));
       const res = await ingest(
         new Request("http://localhost/api/v1/feed/candidates", {
