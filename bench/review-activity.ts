@@ -128,8 +128,7 @@ export async function writeYearOfActivity(client: Client, size: ActivitySize, en
                 const obs = claimedAt + logNormal(1_800_000, 1);
                 ev(obs, "task.state-changed", claimer, id, tid, "claimed", "observing");
                 reportedAt = obs + logNormal(7_200_000, 0.8);
-                ev(reportedAt, "task.state-changed", claimer, id, tid, "observing", "reported");
-                ev(reportedAt, "task.reported", claimer, id, tid, null, null);
+                ev(reportedAt, "task.reported", claimer, id, tid, "observing", "reported");
                 taskState = "reported";
               }
             } else if (rand() < 0.5) {

@@ -57,8 +57,8 @@ export function TrendChart({
               label={{ value: "deadline", position: "insideTopLeft", fill: "var(--c-alarm)", fontSize: 11 }}
             />
             <Bar yAxisId="n" dataKey="late" name="late" fill="var(--c-alarm)" fillOpacity={0.35} cursor="pointer" isAnimationActive={false} onClick={(_, i) => data[i] && onPickWeek(data[i].weekStart)} />
-            <Line yAxisId="ms" type="monotone" dataKey="median" name="median" stroke="var(--c-accent)" strokeWidth={2} dot={{ r: 2 }} connectNulls={false} isAnimationActive={false} />
-            <Line yAxisId="ms" type="monotone" dataKey="p90" name="p90" stroke="var(--c-muted)" strokeDasharray="3 3" dot={false} connectNulls={false} isAnimationActive={false} />
+            <Line yAxisId="ms" type="linear" dataKey="median" name="median" stroke="var(--c-accent)" strokeWidth={2} dot={{ r: 2 }} connectNulls={false} isAnimationActive={false} />
+            <Line yAxisId="ms" type="linear" dataKey="p90" name="p90" stroke="var(--c-muted)" strokeDasharray="3 3" dot={false} connectNulls={false} isAnimationActive={false} />
           </ComposedChart>
         </ResponsiveContainer>
       </div>

@@ -1,15 +1,8 @@
 import { sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db";
-import {
-  buildFacts,
-  type CandidateRow,
-  type MilestoneRow,
-  type PageRow,
-  type TaskCountRow,
-  type TriageEventRow,
-} from "@/lib/review/facts";
+import { factsOf, type Stamp } from "@/lib/review/facts";
 import type { ShiftInfo } from "@/lib/review/groups";
-import type { CandidateFacts } from "@/lib/review/timeline";
+import type { CandidateFacts, DecisionState } from "@/lib/review/timeline";
 import type { Tx } from "./events";
 
 export interface ReviewFilters {
@@ -21,31 +14,35 @@ export interface ReviewFilters {
 }
 
 /**
- * The candidates received in [from, to) (and before `now`), with the filters that live in the candidates table.
- * Every other query keeps to this set, so each returns rows of candidates in range only.
+ * The candidates received in [from, to) (and before `now`), with the filters that live in the candidates table;
+ * with a site filter, only candidates with a task at that site.
  */
 function candidateSet(f: ReviewFilters, nowMs: number): SQL {
   const parts = [sql`c.received_at >= ${f.fromMs} AND c.received_at < ${Math.min(f.toMs, nowMs + 1)}`];
   if (f.sourceClass) parts.push(sql`c.dominant_class = ${f.sourceClass}`);
   if (f.stage) parts.push(sql`c.stage = ${f.stage}`);
+  if (f.siteId) parts.push(sql`EXISTS (SELECT 1 FROM follow_up_tasks t WHERE t.candidate_id = c.id AND t.site_id = ${f.siteId})`);
   return sql.join(parts, sql` AND `);
 }
 
 /**
- * Event rows of candidates in range. The unary plus keeps SQLite on the (kind, at) index with the candidate set as
- * an in-memory list; left to itself it walks every event of every candidate through events_candidate_idx.
+ * The first event of one kind for the candidate `c`, as "at|actor|to_state". Each is one seek into
+ * events_candidate_kind_idx (candidate_id, kind, at, …), which covers every column read, so no table row is touched.
  */
-const eventsOfSet = (f: ReviewFilters, nowMs: number) =>
-  sql`e.at >= ${f.fromMs} AND e.at <= ${nowMs} AND +e.candidate_id IN (SELECT c.id FROM candidates c WHERE ${candidateSet(f, nowMs)})`;
+function firstEvent(kind: string, condition: SQL, nowMs: number): SQL {
+  return sql`(SELECT printf('%d|%s|%s', e.at, ifnull(e.actor_id, ''), ifnull(e.to_state, '')) FROM events e
+    WHERE e.candidate_id = c.id AND e.kind = ${kind} AND ${condition} AND e.at <= ${nowMs} ORDER BY e.at LIMIT 1)`;
+}
 
-/** With a site filter, only that site's tasks count toward claims and reports. */
-const taskAtSite = (f: ReviewFilters) =>
-  f.siteId ? sql` AND e.task_id IN (SELECT id FROM follow_up_tasks WHERE site_id = ${f.siteId})` : sql``;
+/** With a site filter, only that site's tasks count toward claims, reports and the task counts. */
+const atSite = (f: ReviewFilters, column: SQL) =>
+  f.siteId ? sql` AND ${column} IN (SELECT t.id FROM follow_up_tasks t WHERE t.candidate_id = c.id AND t.site_id = ${f.siteId})` : sql``;
 
 /**
- * The review's reads: six range queries over indexes, whatever the number of candidates (no per-candidate query).
- * Each returns a single JSON array (SQLite's json_group_array): one value to carry out of libSQL instead of
- * thousands of row objects, which is where most of the time went.
+ * The review's read: one statement over the candidates in range (received_at index), each with its first page
+ * from the outbox and its first milestones from the audit log as correlated index seeks, so the cost follows the
+ * number of candidates in range, not the size of the log. It returns a single JSON array (json_group_array): one
+ * value to carry out of libSQL instead of thousands of row objects, which is where most of the time went.
  */
 export const reviewQueries = {
   candidates: (f: ReviewFilters, nowMs: number) => sql`
@@ -53,91 +50,64 @@ export const reviewQueries = {
       c.owner_id, c.event_time, c.received_at, c.withdrawn_at,
       CASE WHEN c.acknowledged_at <= ${nowMs} THEN c.acknowledged_at END,
       CASE WHEN c.acknowledged_at <= ${nowMs} THEN c.acknowledged_by_id END,
-      CASE WHEN c.decided_at <= ${nowMs} THEN c.decided_at END)) AS j
+      CASE WHEN c.decided_at <= ${nowMs} THEN c.decided_at END,
+      (SELECT MIN(n.sent_at) FROM notifications n WHERE n.candidate_id = c.id AND n.kind IN ('page', 'escalation')
+        AND n.channel IN ('push', 'email') AND n.sent_at <= ${nowMs}),
+      ${firstEvent("candidate.triaged", sql`e.from_state = 'new' AND e.to_state <> 'new'`, nowMs)},
+      ${firstEvent("candidate.triaged", sql`e.to_state IN ('pursue', 'dismissed', 'expert')`, nowMs)},
+      ${firstEvent("candidate.triaged", sql`e.to_state = 'pursue'`, nowMs)},
+      ${firstEvent("task.state-changed", sql`e.to_state = 'claimed'${atSite(f, sql`e.task_id`)}`, nowMs)},
+      ${firstEvent("task.reported", sql`1 = 1${atSite(f, sql`e.task_id`)}`, nowMs)},
+      (SELECT printf('%d|%d', count(*), total(t2.state = 'cancelled')) FROM follow_up_tasks t2
+        WHERE t2.candidate_id = c.id${f.siteId ? sql` AND t2.site_id = ${f.siteId}` : sql``})
+    )) AS j
     FROM (SELECT * FROM candidates c WHERE ${candidateSet(f, nowMs)} ORDER BY c.received_at) c`,
-  /** the first page actually sent (push or e-mail; a first page or an escalated one) per candidate, from the outbox */
-  pages: (f: ReviewFilters, nowMs: number) => sql`
-    SELECT json_group_array(json_array(cid, first_at)) AS j FROM (
-      SELECT n.candidate_id AS cid, MIN(n.sent_at) AS first_at
-      FROM candidates c JOIN notifications n ON n.candidate_id = c.id
-      WHERE ${candidateSet(f, nowMs)} AND n.kind IN ('page', 'escalation') AND n.channel IN ('push', 'email')
-        AND n.sent_at IS NOT NULL AND n.sent_at <= ${nowMs}
-      GROUP BY n.candidate_id)`,
-  triageEvents: (f: ReviewFilters, nowMs: number) => sql`
-    SELECT json_group_array(json_array(e.candidate_id, e.at, e.from_state, e.to_state, e.actor_id)) AS j
-    FROM events e WHERE e.kind = 'candidate.triaged' AND ${eventsOfSet(f, nowMs)}`,
-  taskCounts: (f: ReviewFilters, nowMs: number) => sql`
-    SELECT json_group_array(json_array(cid, n, cancelled)) AS j FROM (
-      SELECT t.candidate_id AS cid, count(*) AS n, sum(t.state = 'cancelled') AS cancelled
-      FROM follow_up_tasks t
-      WHERE t.candidate_id IN (SELECT c.id FROM candidates c WHERE ${candidateSet(f, nowMs)})
-        ${f.siteId ? sql`AND t.site_id = ${f.siteId}` : sql``}
-      GROUP BY t.candidate_id)`,
-  /** first claim per candidate; with a single min(), SQLite takes the bare actor_id from that same row */
-  claims: (f: ReviewFilters, nowMs: number) => sql`
-    SELECT json_group_array(json_array(cid, first_at, actor)) AS j FROM (
-      SELECT e.candidate_id AS cid, MIN(e.at) AS first_at, e.actor_id AS actor
-      FROM events e
-      WHERE e.kind = 'task.state-changed' AND e.to_state = 'claimed' AND ${eventsOfSet(f, nowMs)}${taskAtSite(f)}
-      GROUP BY e.candidate_id)`,
-  reports: (f: ReviewFilters, nowMs: number) => sql`
-    SELECT json_group_array(json_array(cid, first_at, actor)) AS j FROM (
-      SELECT e.candidate_id AS cid, MIN(e.at) AS first_at, e.actor_id AS actor
-      FROM events e
-      WHERE (e.kind = 'task.reported' OR (e.kind = 'task.state-changed' AND e.to_state = 'reported'))
-        AND ${eventsOfSet(f, nowMs)}${taskAtSite(f)}
-      GROUP BY e.candidate_id)`,
 } as const;
 
 type Cell = string | number | null;
 
-async function jsonRows(db: Tx, query: SQL): Promise<Cell[][]> {
-  const [row] = await db.all<{ j: string | null }>(query);
-  return row?.j ? (JSON.parse(row.j) as Cell[][]) : [];
+const str = (v: Cell | undefined) => (v === null || v === undefined ? null : String(v));
+const num = (v: Cell | undefined) => (v === null || v === undefined ? null : Number(v));
+
+/** "at|actor|state" from firstEvent() into its parts. */
+function parseStamp(v: Cell | undefined): (Stamp & { state: string }) | null {
+  if (typeof v !== "string") return null;
+  const [at, actor, state] = v.split("|");
+  return { atMs: Number(at), actorId: actor || null, state: state ?? "" };
 }
 
-const str = (v: Cell) => (v === null ? null : String(v));
-const num = (v: Cell) => (v === null ? null : Number(v));
-
-/** Per-candidate facts for the review, built in one pass over the six queries' results. */
+/** Per-candidate facts for the review, from the one query above. */
 export async function loadCandidateFacts(f: ReviewFilters, nowMs: number, q?: Tx): Promise<CandidateFacts[]> {
   const db = q ?? (await getDb());
-  const candidates: CandidateRow[] = (await jsonRows(db, reviewQueries.candidates(f, nowMs))).map((r) => ({
-    id: String(r[0]),
-    source: String(r[1]),
-    externalId: String(r[2]),
-    stage: String(r[3]),
-    dominantClass: str(r[4] ?? null),
-    triageState: String(r[5]),
-    ownerId: str(r[6] ?? null),
-    eventTimeMs: Number(r[7]),
-    receivedAtMs: Number(r[8]),
-    withdrawnAtMs: num(r[9] ?? null),
-    acknowledgedAtMs: num(r[10] ?? null),
-    acknowledgedById: str(r[11] ?? null),
-    decidedAtMs: num(r[12] ?? null),
-  }));
-  if (candidates.length === 0) return [];
-  const pages: PageRow[] = (await jsonRows(db, reviewQueries.pages(f, nowMs))).map((r) => ({
-    candidateId: String(r[0]),
-    firstSentAtMs: Number(r[1]),
-  }));
-  const triageEvents: TriageEventRow[] = (await jsonRows(db, reviewQueries.triageEvents(f, nowMs))).map((r) => ({
-    candidateId: String(r[0]),
-    atMs: Number(r[1]),
-    fromState: str(r[2] ?? null),
-    toState: str(r[3] ?? null),
-    actorId: str(r[4] ?? null),
-  }));
-  const taskCounts: TaskCountRow[] = (await jsonRows(db, reviewQueries.taskCounts(f, nowMs))).map((r) => ({
-    candidateId: String(r[0]),
-    taskCount: Number(r[1]),
-    cancelledCount: Number(r[2]),
-  }));
-  const milestone = (r: Cell[]): MilestoneRow => ({ candidateId: String(r[0]), atMs: Number(r[1]), actorId: str(r[2] ?? null) });
-  const claims = (await jsonRows(db, reviewQueries.claims(f, nowMs))).map(milestone);
-  const reports = (await jsonRows(db, reviewQueries.reports(f, nowMs))).map(milestone);
-  return buildFacts({ candidates, pages, triageEvents, taskCounts, claims, reports }, { siteOnly: Boolean(f.siteId) });
+  const [row] = await db.all<{ j: string | null }>(reviewQueries.candidates(f, nowMs));
+  const rows = row?.j ? (JSON.parse(row.j) as Cell[][]) : [];
+  return rows.map((r) => {
+    const decision = parseStamp(r[15]);
+    const tasks = String(r[19] ?? "0|0").split("|");
+    return factsOf({
+      id: String(r[0]),
+      source: String(r[1]),
+      externalId: String(r[2]),
+      stage: String(r[3]),
+      dominantClass: str(r[4]),
+      triageState: String(r[5]),
+      ownerId: str(r[6]),
+      eventTimeMs: Number(r[7]),
+      receivedAtMs: Number(r[8]),
+      withdrawnAtMs: num(r[9]),
+      acknowledgedAtMs: num(r[10]),
+      acknowledgedById: str(r[11]),
+      decidedAtMs: num(r[12]),
+      firstPageAtMs: num(r[13]),
+      leftNew: parseStamp(r[14]),
+      firstDecision: decision ? { ...decision, state: decision.state as DecisionState } : null,
+      firstPursueAtMs: parseStamp(r[16])?.atMs ?? null,
+      firstClaim: parseStamp(r[17]),
+      firstReport: parseStamp(r[18]),
+      taskCount: Number(tasks[0] ?? 0),
+      cancelledTaskCount: Number(tasks[1] ?? 0),
+    });
+  });
 }
 
 /** Shifts overlapping [from, to), with the names of their primary and backup. */
