@@ -2,7 +2,7 @@
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { BellOff, BellPlus, Send, Smartphone, Trash2 } from "lucide-react";
-import { useEffect, useState } from "react";
+import { useEffect, useState, useSyncExternalStore } from "react";
 import { toast } from "sonner";
 import { Button } from "@/components/ui/button";
 import { apiFetch, ApiClientError } from "@/lib/api-client";
@@ -17,15 +17,17 @@ const supportText: Record<Exclude<PushSupport, "supported">, string> = {
   insecure: "Web push needs HTTPS (or localhost).",
 };
 
+const noSubscription = () => () => undefined;
+
 const message = (e: unknown) => (e instanceof ApiClientError || e instanceof Error ? e.message : "something went wrong");
 
 /** This browser's push subscription, the person's other devices, and a test page. */
 export function DevicePanel({ timeZone }: { timeZone: string }) {
   const queryClient = useQueryClient();
-  const [support, setSupport] = useState<PushSupport>("unsupported");
+  // The browser's answer, read after hydration (the server renders "unsupported").
+  const support = useSyncExternalStore(noSubscription, pushSupport, () => "unsupported" as PushSupport);
   const [thisEndpoint, setThisEndpoint] = useState<string | null>(null);
   useEffect(() => {
-    setSupport(pushSupport());
     void currentSubscription().then((s) => setThisEndpoint(s?.endpoint ?? null), () => setThisEndpoint(null));
   }, []);
 

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { ShieldAlert } from "lucide-react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { toast } from "sonner";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
@@ -53,7 +53,7 @@ export function PreferencesForm({ view, showTaskSites }: { view: PreferencesView
       else toast.error(e instanceof Error ? e.message : "Could not save");
     },
   });
-  const quietOn = form.watch("quietEnabled");
+  const quietOn = useWatch({ control: form.control, name: "quietEnabled" });
 
   return (
     <form onSubmit={form.handleSubmit((v) => save.mutate(v))} className="space-y-4" noValidate data-testid="paging-preferences">

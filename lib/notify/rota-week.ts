@@ -76,3 +76,9 @@ export function layoutDay<T extends { startMs: number; endMs: number }>(items: r
   const lanes = Math.max(1, laneEnds.length);
   return placed.map((p) => ({ ...p, lanes }));
 }
+
+/** The week a rota page shows: the one holding `?week=yyyy-MM-dd` (local date), else the current one. */
+export function shownWeek(week: string | undefined, timeZone: string, nowMs: number = Date.now()): { nowMs: number; weekStart: number } {
+  const at = (week ? localDateToMs(week, timeZone) : null) ?? nowMs;
+  return { nowMs, weekStart: weekStartMs(at, timeZone) };
+}

@@ -3,7 +3,7 @@ import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { listRotaPeople } from "@/lib/data/rota";
 import { readEscalationPolicy } from "@/lib/notify/policy-store";
-import { localDateToMs, weekStartMs } from "@/lib/notify/rota-week";
+import { shownWeek } from "@/lib/notify/rota-week";
 import { EscalationPolicyPanel } from "./_components/escalation-policy-panel";
 import { RotaView } from "./_components/rota-view";
 
@@ -13,8 +13,7 @@ export default async function RotaPage({ searchParams }: { searchParams: Promise
   const user = await requirePageUser();
   const canEdit = hasRole(user, can.manageRota);
   const { week } = await searchParams;
-  const nowMs = Date.now();
-  const weekStart = weekStartMs((week ? localDateToMs(week, user.timeZone) : null) ?? nowMs, user.timeZone);
+  const { nowMs, weekStart } = shownWeek(week, user.timeZone);
   const [people, policy] = await Promise.all([canEdit ? listRotaPeople() : Promise.resolve([]), readEscalationPolicy()]);
   return (
     <div className="space-y-4">

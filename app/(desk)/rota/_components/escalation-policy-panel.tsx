@@ -27,7 +27,7 @@ export function EscalationPolicyPanel({ policy: initial, canEdit }: { policy: Es
   const queryClient = useQueryClient();
   const { data: policy = initial } = useQuery({ queryKey: pagingKeys.policy, queryFn: () => apiFetch<EscalationPolicy>("/api/v1/escalation-policy"), initialData: initial });
   const [editing, setEditing] = useState(false);
-  let elapsed = 0;
+  const elapsedAt = policy.steps.map((_, i) => policy.steps.slice(0, i + 1).reduce((sum, s) => sum + s.afterMinutes, 0));
   return (
     <Panel data-testid="escalation-policy">
       <div className="flex items-start justify-between gap-3">
@@ -40,7 +40,7 @@ export function EscalationPolicyPanel({ policy: initial, canEdit }: { policy: Es
       </div>
       <ol className="flex flex-wrap items-center gap-2 text-sm">
         {policy.steps.map((step, i) => {
-          elapsed += step.afterMinutes;
+          const elapsed = elapsedAt[i] ?? 0;
           return (
             <li key={step.target} className="flex items-center gap-2">
               {i > 0 ? <ArrowRight aria-hidden className="h-4 w-4 text-faint" /> : null}
