@@ -1,6 +1,119 @@
+import { and, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "@/db";
+import { candidates, escalations, notifications, sites, users } from "@/db/schema";
+import { FeedGenerator } from "@/fakes/feed/generator";
+import type { SessionUser } from "@/lib/auth/roles";
+import { ingestCandidate } from "@/lib/data/ingest";
+import { claimTask, createTasks, moveTask, reportTask } from "@/lib/data/tasks";
+import { transitionCandidate } from "@/lib/data/triage";
+import { setNotifyClock } from "@/lib/notify/clock";
+import { demoNetwork } from "./scenario";
 
-/** Past candidates for the demo, fed through the real ingest path (filled in with the feed). */
-export async function seedPastCandidates(_db: Database, _now: Date): Promise<number> {
-  return 0;
+const MINUTE = 60_000;
+
+/** A small deterministic random source so the demo week looks the same on every fresh clone. */
+function seeded(seed: number) {
+  let s = seed >>> 0;
+  return () => {
+    s = (s + 0x6d2b79f5) >>> 0;
+    let t = s;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+function asSessionUser(row: typeof users.$inferSelect): SessionUser {
+  return { id: row.id, email: row.email, name: row.name, role: row.role, timeZone: row.timeZone, initials: row.initials };
+}
+
+/**
+ * A week of past activity, fed through the real ingest, triage and task paths with past clocks, so the boards,
+ * candidate pages and the response-time review have something to show. Pages for these past candidates are
+ * marked as already delivered, so the worker does not send them again on a fresh start.
+ */
+export async function seedPastCandidates(db: Database, now: Date): Promise<number> {
+  const rand = seeded(20261201);
+  const people = (await db.select().from(users)).map(asSessionUser);
+  const byEmail = new Map(people.map((p) => [p.email, p]));
+  const shifters = people.filter((p) => p.role === "shifter");
+  const observers = people.filter((p) => p.role === "observer");
+  const coordinator = byEmail.get("cleo@chirpdesk.test");
+  const siteRows = await db.select().from(sites);
+  if (shifters.length === 0 || observers.length === 0 || !coordinator) return 0;
+
+  const generator = new FeedGenerator({
+    seed: "demo-week",
+    scenario: "mixed",
+    sites: demoNetwork.detectors.map((d) => d.code),
+    trackSamples: 120,
+  });
+  const start = now.getTime() - 7 * 24 * 60 * MINUTE;
+  const created: Array<{ id: string; receivedAt: number }> = [];
+  for (let t = start; t < now.getTime() - 30 * MINUTE; t += (3 + rand() * 6) * 60 * MINUTE) {
+    const post = generator.next(t);
+    if (!post.payload) continue;
+    const receivedAt = new Date(Math.max(t, Date.parse(post.payload.eventTime)) + (4 + rand() * 20) * 1000);
+    setNotifyClock(() => receivedAt.getTime()); // page as it would have been paged then
+    const result = await ingestCandidate(post.payload, receivedAt).finally(() => setNotifyClock(null));
+    if (result.outcome === "created") created.push({ id: result.answer.id, receivedAt: receivedAt.getTime() });
+  }
+
+  // The pages for these were "sent" at the time; their escalation timers were answered.
+  await db.run(sql`UPDATE notifications SET status = 'sent', attempts = 1,
+    sent_at = (SELECT c.received_at FROM candidates c WHERE c.id = notifications.candidate_id) + 5000 + (abs(random()) % 40000)
+    WHERE status = 'pending' AND candidate_id IS NOT NULL`);
+  await db.update(notifications).set({ status: "cancelled" }).where(eq(notifications.status, "pending"));
+  await db.run(sql`UPDATE notifications SET read_at = sent_at WHERE channel = 'in-app' AND read_at IS NULL`);
+  await db.update(escalations).set({ status: "cancelled" }).where(eq(escalations.status, "pending"));
+
+  // The newest two stay new for the board; the rest were handled by whoever was on shift.
+  for (const [index, item] of created.slice(0, -2).entries()) {
+    const [row] = await db.select().from(candidates).where(eq(candidates.id, item.id)).limit(1);
+    if (!row || row.stage === "withdrawn") continue;
+    const shifter = shifters[index % shifters.length] as SessionUser;
+    let at = item.receivedAt + (0.7 + rand() * 7) * MINUTE;
+    await transitionCandidate({ actor: shifter, candidateId: item.id, to: "acknowledged", via: "board", now: new Date(at) });
+    at += (3 + rand() * 30) * MINUTE;
+    const pursue = row.dominantClass === "bns" || row.dominantClass === "nsbh" || (row.dominantClass === "lowerGap" && rand() < 0.7);
+    if (index % 9 === 4) {
+      await transitionCandidate({ actor: shifter, candidateId: item.id, to: "reviewing", via: "board", now: new Date(at) });
+      continue;
+    }
+    if (!pursue) {
+      const reason = row.falseAlarmRatePerYear > 1 ? "false-alarm rate too high for follow-up" : "black-hole pair: no counterpart expected";
+      await transitionCandidate({ actor: shifter, candidateId: item.id, to: index % 7 === 3 ? "expert" : "dismissed", reason, via: "board", now: new Date(at) });
+      continue;
+    }
+    await transitionCandidate({ actor: shifter, candidateId: item.id, to: "pursue", via: "board", now: new Date(at) });
+    const chosen = siteRows.slice(0, 2 + (index % 2));
+    const tasks = await createTasks(
+      shifter,
+      item.id,
+      chosen.map((s, i) => ({
+        kind: s.fieldOfViewDeg2 > 5 ? "wide-field-tiling" : s.fieldOfViewDeg2 < 0.1 ? "spectroscopy" : "galaxy-targeted",
+        siteId: s.id,
+        windowStart: new Date(at + 10 * MINUTE),
+        windowEnd: new Date(at + 10 * 60 * MINUTE),
+        priority: i === 0 ? 1 : 2,
+        notes: "",
+      })),
+      new Date(at),
+    );
+    for (const [taskIndex, task] of tasks.entries()) {
+      if (item.receivedAt > now.getTime() - 12 * 60 * MINUTE && taskIndex > 0) continue; // recent ones still open
+      const observer = observers[(index + taskIndex) % observers.length] as SessionUser;
+      let taskAt = at + (8 + rand() * 80) * MINUTE;
+      await claimTask(observer, task.id, new Date(taskAt));
+      taskAt += (10 + rand() * 60) * MINUTE;
+      await moveTask({ actor: observer, taskId: task.id, to: "observing", now: new Date(taskAt) });
+      if (taskAt + 3 * 60 * MINUTE > now.getTime()) continue;
+      taskAt += (60 + rand() * 300) * MINUTE;
+      await reportTask(observer, task.id, taskIndex === 0 ? "Tiles covered; no new transient brighter than 20.5 mag in the 90 % region." : "Three catalogued galaxies imaged; nothing new.", new Date(taskAt));
+    }
+  }
+  const ids = created.map((c) => c.id);
+  if (ids.length === 0) return 0;
+  const [count] = await db.select({ n: sql<number>`count(*)` }).from(candidates).where(and(inArray(candidates.id, ids)));
+  return count?.n ?? 0;
 }

@@ -33,13 +33,13 @@ export async function seedDemo(db: Database, options: SeedOptions = {}): Promise
     }
   }
 
-  // A rota around now: 8-hour shifts, Ada and Emil alternating as primary, from yesterday to three days ahead.
+  // A rota around now: 8-hour shifts, Ada and Emil alternating as primary, from eight days ago to three days ahead.
   const ada = byEmail.get("ada@chirpdesk.test");
   const emil = byEmail.get("emil@chirpdesk.test");
   if (ada && emil) {
     const start = new Date(now);
-    start.setUTCHours(Math.floor(start.getUTCHours() / 8) * 8 - 24, 0, 0, 0);
-    const rows = Array.from({ length: 12 }, (_, i) => {
+    start.setUTCHours(Math.floor(start.getUTCHours() / 8) * 8 - 8 * 24, 0, 0, 0);
+    const rows = Array.from({ length: 11 * 3 }, (_, i) => {
       const startsAt = new Date(start.getTime() + i * 8 * 3600_000);
       const primary = i % 2 === 0 ? ada : emil;
       const backup = i % 2 === 0 ? emil : ada;
