@@ -24,7 +24,7 @@ import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { signOut } from "next-auth/react";
 import { useTheme } from "next-themes";
-import { useState } from "react";
+import { useState, useSyncExternalStore } from "react";
 import type { SessionUser } from "@/lib/auth/roles";
 import { roleLabels } from "@/lib/auth/roles";
 import { Avatar } from "@/components/ui/avatar";
@@ -45,9 +45,13 @@ const icons: Record<NavItem["icon"], LucideIcon> = {
   notifications: Bell,
 };
 
+const noSubscribe = () => () => {};
+
 function ThemeToggle() {
   const { resolvedTheme, setTheme } = useTheme();
-  const dark = resolvedTheme !== "light";
+  // The stored theme is only known in the browser: render the server's default until hydrated.
+  const hydrated = useSyncExternalStore(noSubscribe, () => true, () => false);
+  const dark = !hydrated || resolvedTheme !== "light";
   return (
     <button
       type="button"
