@@ -1,5 +1,6 @@
 // `npm run worker` (tsx lib/notify/worker-main.ts): the paging outbox worker, until SIGINT/SIGTERM.
-// Several may run at once against one database. Tuning: WORKER_POLL_MS, WORKER_LEASE_MS, WORKER_BATCH, WORKER_ID.
+// Several may run at once against one database. Tuning: WORKER_POLL_MS, WORKER_LEASE_MS, WORKER_BATCH,
+// WORKER_CONCURRENCY (sends in flight), WORKER_ID.
 import { closeDb } from "@/db";
 import { loadEnvFile } from "@/scripts/ensure-env";
 import { createWorker } from "./worker";
@@ -19,6 +20,7 @@ const worker = createWorker({
   pollMs: positive("WORKER_POLL_MS"),
   leaseMs: positive("WORKER_LEASE_MS"),
   batchSize: positive("WORKER_BATCH"),
+  concurrency: positive("WORKER_CONCURRENCY"),
 });
 worker.start();
 console.log(`paging worker ${worker.workerId} running`);
