@@ -1,18 +1,16 @@
-import { ClipboardList } from "lucide-react";
-import { EmptyState } from "@/components/ui/empty-state";
+import { SitesView } from "@/components/sites/sites-view";
 import { PageHeader } from "@/components/ui/page-header";
+import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 
 export const metadata = { title: "Sites" };
 
 export default async function SitesPage() {
-  await requirePageUser();
+  const user = await requirePageUser();
   return (
     <>
       <PageHeader title="Observing sites" description="Telescopes that take follow-up tasks, and what each can see tonight." />
-      <EmptyState icon={ClipboardList} title="No sites defined">
-        Coordinators add sites with their position, altitude limit and field of view.
-      </EmptyState>
+      <SitesView canManage={hasRole(user, can.manageSites)} timeZone={user.timeZone} />
     </>
   );
 }

@@ -1,0 +1,178 @@
+"use client";
+
+import { geoGraticule, geoPath } from "d3-geo";
+import { useEffect, useMemo, useRef, useState } from "react";
+import type { NightBand } from "./night-band";
+import { projectView, type SkyView } from "./projection";
+import { paint, samplePixels, type RasterGrid, type Rgb } from "./raster";
+import { formatDec, formatRa } from "./format";
+
+export interface SkyMarker {
+  raDeg: number;
+  decDeg: number;
+  label: string;
+  kind: "sun" | "moon" | "peak";
+}
+
+export interface SkyMapProps {
+  grid: RasterGrid;
+  view: SkyView;
+  bands: ReadonlyArray<NightBand & { code: string; colour: Rgb }>;
+  markers: ReadonlyArray<SkyMarker>;
+  /** Width over height of the drawing: 2 for the all-sky view, 1 for the zoom. */
+  aspect: number;
+  title: string;
+  maxWidth?: number;
+}
+
+/** "9h", "9h20m": compact RA labels for grid lines. */
+function raLabel(raDeg: number): string {
+  const minutes = Math.round(((((raDeg % 360) + 360) % 360) * 4)) % 1440;
+  const h = Math.floor(minutes / 60);
+  const m = minutes % 60;
+  return m ? `${h}h${String(m).padStart(2, "0")}m` : `${h}h`;
+}
+
+const decLabel = (decDeg: number) => (decDeg === 0 ? "0°" : `${decDeg > 0 ? "+" : "−"}${Math.abs(decDeg)}°`);
+
+/** Keeps the drawing light: the raster is computed at CSS pixel size, at most this wide. */
+const MAX_RASTER_WIDTH = 760;
+
+function useWidth(ref: React.RefObject<HTMLElement | null>, maxWidth: number): number {
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    // small changes (a scroll bar appearing as the page grows) are ignored, so redrawing cannot feed back on itself
+    const update = () => setWidth((w) => {
+      const next = Math.min(maxWidth, Math.floor(el.clientWidth));
+      return Math.abs(next - w) > 24 || w === 0 ? next : w;
+    });
+    update();
+    const observer = new ResizeObserver(update);
+    observer.observe(el);
+    return () => observer.disconnect();
+  }, [ref, maxWidth]);
+  return width;
+}
+
+/** One sky view: probability raster and contours on a canvas, grid, labels and markers in SVG on top. */
+export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH }: SkyMapProps) {
+  const wrapper = useRef<HTMLDivElement>(null);
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const width = useWidth(wrapper, maxWidth);
+  const height = Math.round(width / aspect);
+  const projected = useMemo(() => (width > 0 ? projectView(view, width, height) : null), [view, width, height]);
+  const [hover, setHover] = useState<[number, number] | null>(null);
+
+  // the costly part (inverse projection and HEALPix lookup per canvas pixel) depends only on the view and size
+  const samples = useMemo(() => (projected ? samplePixels(width, height, grid.nside, projected.skyAt) : null), [projected, width, height, grid.nside]);
+  useEffect(() => {
+    const ctx = canvas.current?.getContext("2d");
+    if (!ctx || !samples) return;
+    ctx.putImageData(new ImageData(paint(samples, grid, bands), samples.width, samples.height), 0, 0);
+  }, [samples, grid, bands]);
+
+  const overlay = useMemo(() => {
+    if (!projected) return null;
+    const path = geoPath(projected.projection);
+    const zoomStep = view.kind === "zoom" ? (view.radiusDeg > 30 ? 15 : view.radiusDeg > 12 ? 5 : 2) : 30;
+    const graticule = geoGraticule().step([zoomStep, zoomStep]).precision(1)();
+    const labels: Array<{ x: number; y: number; text: string; anchor: "middle" | "start" }> = [];
+    if (view.kind === "all-sky") {
+      for (let ra = 0; ra < 360; ra += 30) {
+        const at = projected.place(ra, 0);
+        if (at) labels.push({ x: at[0], y: at[1] - 3, text: `${ra / 15}h`, anchor: "middle" });
+      }
+      for (const dec of [-60, -30, 30, 60]) {
+        const at = projected.place(180, dec);
+        if (at) labels.push({ x: at[0] + 3, y: at[1] - 2, text: decLabel(dec), anchor: "start" });
+      }
+    } else {
+      const { centre, radiusDeg } = view;
+      // RA labels along a parallel in the lower part of the view, declinations along the central meridian
+      const decLine = Math.round((centre.decDeg - 0.7 * radiusDeg) / zoomStep) * zoomStep;
+      for (let ra = Math.floor((centre.raDeg - 90) / zoomStep) * zoomStep; ra <= centre.raDeg + 90; ra += zoomStep) {
+        const at = projected.place(((ra % 360) + 360) % 360, decLine);
+        if (at) labels.push({ x: at[0], y: at[1] - 3, text: raLabel(ra), anchor: "middle" });
+      }
+      const raLine = Math.round(centre.raDeg / zoomStep) * zoomStep;
+      for (let dec = -90 + zoomStep; dec < 90; dec += zoomStep) {
+        const at = projected.place(raLine, dec);
+        if (at && dec !== decLine) labels.push({ x: at[0] + 3, y: at[1] - 2, text: decLabel(dec), anchor: "start" });
+      }
+    }
+    return { outline: path({ type: "Sphere" }) ?? "", grid: path(graticule) ?? "", labels };
+  }, [projected, view]);
+
+  const onMove = (e: React.MouseEvent<SVGSVGElement>) => {
+    if (!projected) return;
+    const box = e.currentTarget.getBoundingClientRect();
+    setHover(projected.skyAt(e.clientX - box.left, e.clientY - box.top));
+  };
+
+  return (
+    <figure className="space-y-1">
+      <div ref={wrapper} className="relative w-full" style={{ height: height || undefined }}>
+        {width > 0 ? (
+          <>
+            <canvas ref={canvas} width={width} height={height} className="absolute left-0 top-0" aria-hidden />
+            <svg
+              width={width}
+              height={height}
+              className="absolute left-0 top-0"
+              role="img"
+              aria-label={title}
+              onMouseMove={onMove}
+              onMouseLeave={() => setHover(null)}
+            >
+              <path d={overlay?.outline} fill="none" className="stroke-line-strong" strokeWidth={1} />
+              <path d={overlay?.grid} fill="none" className="stroke-faint" strokeOpacity={0.35} strokeWidth={0.6} />
+              {overlay?.labels.map((l) => (
+                <text key={`${l.text}-${l.x}`} x={l.x} y={l.y} textAnchor={l.anchor} className="fill-muted font-mono text-[10px]">
+                  {l.text}
+                </text>
+              ))}
+              {markers.map((m) => {
+                const at = projected?.place(m.raDeg, m.decDeg);
+                if (!at) return null;
+                return <Marker key={m.kind} x={at[0]} y={at[1]} marker={m} />;
+              })}
+            </svg>
+          </>
+        ) : null}
+      </div>
+      <figcaption className="flex flex-wrap justify-between gap-2 text-xs text-muted">
+        <span>{title}</span>
+        <span className="font-mono" aria-live="off">
+          {hover ? `RA ${formatRa(hover[0])}  Dec ${formatDec(hover[1])}` : "RA increases to the left"}
+        </span>
+      </figcaption>
+    </figure>
+  );
+}
+
+function Marker({ x, y, marker }: { x: number; y: number; marker: SkyMarker }) {
+  if (marker.kind === "peak") {
+    return (
+      <g transform={`translate(${x},${y})`} className="stroke-fg" strokeWidth={1.5}>
+        <line x1={-6} x2={-2} y1={0} y2={0} />
+        <line x1={2} x2={6} y1={0} y2={0} />
+        <line x1={0} x2={0} y1={-6} y2={-2} />
+        <line x1={0} x2={0} y1={2} y2={6} />
+        <title>{marker.label}</title>
+      </g>
+    );
+  }
+  const sun = marker.kind === "sun";
+  return (
+    <g transform={`translate(${x},${y})`}>
+      <circle r={sun ? 7 : 6} fill={sun ? "#facc15" : "#d4d4d8"} stroke={sun ? "#a16207" : "#52525b"} strokeWidth={1} />
+      {sun ? <circle r={2} fill="#a16207" /> : null}
+      <text x={10} y={4} className="fill-fg text-[11px] font-medium" paintOrder="stroke" stroke="var(--c-surface)" strokeWidth={3}>
+        {marker.label}
+      </text>
+      <title>{marker.label}</title>
+    </g>
+  );
+}

@@ -1,0 +1,216 @@
+"use client";
+
+import { useQueryClient } from "@tanstack/react-query";
+import { Map as MapIcon, TriangleAlert } from "lucide-react";
+import { useMemo, useState } from "react";
+import { Caution } from "@/components/candidate/caution";
+import { Select } from "@/components/ui/field";
+import { Panel, PanelTitle } from "@/components/ui/panel";
+import type { SkymapInfo } from "@/lib/data/skymaps";
+import { formatInZone, isoUtc } from "@/lib/format/time";
+import { credibleRegionPoints } from "@/lib/skymap/region";
+import { ConeQuery } from "./cone-query";
+import { formatArea, formatBytes, formatDec, formatRa, formatShare } from "./format";
+import { SkymapLegend } from "./legend";
+import { zoomOn, type SkyView } from "./projection";
+import { skymapKeys, siteColours } from "./query-keys";
+import type { Rgb } from "./raster";
+import { SkyMap, type SkyMarker } from "./sky-map";
+import { SkymapUpload } from "./skymap-upload";
+import { useCandidateSkymaps, useDisplayGrid, useSunMoonNow, useVisibility } from "./use-skymap-data";
+import { VisibilityTable } from "./visibility-table";
+
+const ALL_SKY: SkyView = { kind: "all-sky" };
+const WHITE: Rgb = [255, 255, 255];
+
+/** The candidate's sky localisation: numbers, all-sky and zoomed maps, site visibility, cone queries, uploads. */
+export function SkymapPanel({ candidateId, canUpload, timeZone }: { candidateId: string; canUpload: boolean; timeZone: string }) {
+  const queryClient = useQueryClient();
+  const list = useCandidateSkymaps(candidateId);
+  const [chosenId, setChosenId] = useState<string | null>(null);
+  const maps = list.data ?? [];
+  const current = maps.find((m) => m.id === chosenId) ?? maps[0];
+  const refresh = () => {
+    setChosenId(null);
+    void queryClient.invalidateQueries({ queryKey: skymapKeys.list(candidateId) });
+    void queryClient.invalidateQueries({ queryKey: skymapKeys.visibility(candidateId) });
+    void queryClient.invalidateQueries({ queryKey: skymapKeys.suggestions(candidateId) });
+  };
+
+  return (
+    <Panel data-testid="skymap-panel" aria-labelledby="skymap-title">
+      <div className="mb-3 flex flex-wrap items-start justify-between gap-2">
+        <PanelTitle id="skymap-title" className="mb-0">
+          Sky localisation
+        </PanelTitle>
+        {maps.length > 1 ? (
+          <Select aria-label="Sky map shown" className="h-8 w-auto py-1 text-xs" value={current?.id} onChange={(e) => setChosenId(e.target.value)}>
+            {maps.map((m, i) => (
+              <option key={m.id} value={m.id}>
+                {i === 0 ? "Newest: " : ""}
+                {m.file.name} · {formatInZone(m.createdAt, timeZone)}
+              </option>
+            ))}
+          </Select>
+        ) : null}
+      </div>
+      {list.isLoading ? <p className="text-sm text-muted">Loading sky maps…</p> : null}
+      {list.isError ? <p className="text-sm text-alarm">Could not load sky maps: {String(list.error)}</p> : null}
+      {list.isSuccess && !current ? (
+        <div className="flex flex-col items-center gap-3 rounded-lg border border-dashed border-line bg-sunken px-4 py-8 text-center">
+          <MapIcon aria-hidden className="h-7 w-7 text-faint" />
+          <p className="text-sm font-medium">No sky map yet</p>
+          <p className="max-w-md text-sm text-muted">
+            The feed attaches one when its localisation is ready{canUpload ? ", or upload a HEALPix FITS file here" : ""}.
+          </p>
+          {canUpload ? <SkymapUpload candidateId={candidateId} onUploaded={refresh} /> : null}
+        </div>
+      ) : null}
+      {current ? (
+        <SkymapDetails key={current.id} skymap={current} isNewest={current.id === maps[0]?.id} candidateId={candidateId} timeZone={timeZone} />
+      ) : null}
+      {current && canUpload ? (
+        <div className="mt-4 border-t border-line pt-3">
+          <SkymapUpload candidateId={candidateId} onUploaded={refresh} compact />
+        </div>
+      ) : null}
+    </Panel>
+  );
+}
+
+function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: SkymapInfo; isNewest: boolean; candidateId: string; timeZone: string }) {
+  const grid = useDisplayGrid(skymap.id);
+  const visibility = useVisibility(candidateId, true);
+  const sunMoon = useSunMoonNow();
+  const rows = useMemo(() => visibility.data?.rows ?? [], [visibility.data]);
+
+  const colours = useMemo(() => {
+    const codes = rows.map((r) => r.site.code).sort();
+    return new Map<string, Rgb>(codes.map((code, i) => [code, siteColours[i % siteColours.length] ?? WHITE]));
+  }, [rows]);
+  const [hidden, setHidden] = useState<ReadonlySet<string>>(new Set());
+  const bands = useMemo(
+    () =>
+      isNewest
+        ? rows.filter((r) => !hidden.has(r.site.code)).flatMap((r) =>
+            r.band ? [{ ...r.band, latDeg: r.site.latitudeDeg, minAltitudeDeg: r.site.minAltitudeDeg, code: r.site.code, colour: colours.get(r.site.code) ?? WHITE }] : [],
+          )
+        : [],
+    [rows, colours, isNewest, hidden],
+  );
+  const toggle = (code: string) =>
+    setHidden((h) => {
+      const next = new Set(h);
+      if (next.has(code)) next.delete(code);
+      else next.add(code);
+      return next;
+    });
+  const zoom = useMemo(
+    () => (grid.data ? zoomOn(skymap.peak, credibleRegionPoints(grid.data, { level: 0.9, maxPoints: 4096 })) : null),
+    [grid.data, skymap.peak],
+  );
+  const markers = useMemo<SkyMarker[]>(() => {
+    const list: SkyMarker[] = [{ ...skymap.peak, kind: "peak", label: `Most probable position ${formatRa(skymap.peak.raDeg)} ${formatDec(skymap.peak.decDeg)}` }];
+    if (sunMoon) {
+      list.push({ ...sunMoon.sun, kind: "sun", label: "Sun" });
+      list.push({ ...sunMoon.moon, kind: "moon", label: `Moon ${formatShare(sunMoon.moon.illumination)} lit` });
+    }
+    return list;
+  }, [skymap.peak, sunMoon]);
+
+  return (
+    <div className="space-y-4">
+      <dl className="grid grid-cols-2 gap-3 text-sm sm:grid-cols-4" data-testid="skymap-numbers">
+        <Figure label="50 % area" value={formatArea(skymap.area50Deg2)} testId="area50" />
+        <Figure label="90 % area" value={formatArea(skymap.area90Deg2)} testId="area90" />
+        <Figure label="Most probable RA" value={formatRa(skymap.peak.raDeg)} hint={`${skymap.peak.raDeg.toFixed(3)}°`} />
+        <Figure label="Most probable Dec" value={formatDec(skymap.peak.decDeg)} hint={`${skymap.peak.decDeg.toFixed(3)}°`} />
+      </dl>
+      <Caution />
+      {skymap.warnings.length ? (
+        <ul className="space-y-1 rounded-md border border-warn/40 bg-warn/10 px-3 py-2 text-sm" aria-label="Warnings about this sky map">
+          {skymap.warnings.map((w) => (
+            <li key={w} className="flex gap-2">
+              <TriangleAlert aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-warn" />
+              {w}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {grid.isError ? <p className="text-sm text-alarm">Could not load the map for drawing: {String(grid.error)}</p> : null}
+      {grid.data ? (
+        <div className="space-y-4" data-testid="skymap-views">
+          <div className="rounded-md bg-sunken p-2">
+            <SkyMap grid={grid.data} view={ALL_SKY} bands={bands} markers={markers} aspect={2} title="All sky (Mollweide, equatorial J2000)" />
+          </div>
+          <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+            <div className="rounded-md bg-sunken p-2">
+              {zoom ? (
+                <SkyMap
+                  grid={grid.data}
+                  view={zoom}
+                  bands={bands}
+                  markers={markers}
+                  aspect={1}
+                  maxWidth={420}
+                  title={`The 90 % region (equal-area, ${Math.round(zoom.kind === "zoom" ? 2 * zoom.radiusDeg : 0)}° across)`}
+                />
+              ) : null}
+            </div>
+            <SkymapLegend
+              onToggle={toggle}
+              sites={(isNewest ? rows : []).map((r) => ({
+                code: r.site.code,
+                name: r.site.name,
+                colour: colours.get(r.site.code) ?? WHITE,
+                hasNight: Boolean(r.band),
+                shown: Boolean(r.band) && !hidden.has(r.site.code),
+              }))}
+            />
+          </div>
+        </div>
+      ) : (
+        <div className="h-48 animate-pulse rounded-md bg-sunken" aria-label="Loading the map" />
+      )}
+      <section aria-labelledby="visibility-title" className="space-y-2">
+        <h3 id="visibility-title" className="text-sm font-semibold">
+          What each site can observe tonight{isNewest ? "" : " (of the newest map)"}
+        </h3>
+        {visibility.data ? <VisibilityTable visibility={visibility.data} colours={colours} timeZone={timeZone} /> : null}
+        {visibility.isLoading ? <p className="text-sm text-muted">Working out each site&apos;s night…</p> : null}
+        <p className="text-xs text-faint">
+          Share of the 90 % region&apos;s probability that reaches each site&apos;s altitude limit at some time between the end and start of
+          astronomical twilight (Sun 18° below the horizon), in 10-minute steps, without refraction. The best window holds at least 90 % of the
+          largest share seen at one instant.
+        </p>
+      </section>
+      <section aria-labelledby="cone-title" className="space-y-2">
+        <h3 id="cone-title" className="text-sm font-semibold">
+          Probability in a cone
+        </h3>
+        <ConeQuery skymapId={skymap.id} initial={skymap.peak} />
+        <p className="text-xs text-faint">Counts the map&apos;s pixels whose centres lie inside the cone, at the file&apos;s own resolution.</p>
+      </section>
+      <p className="text-xs text-faint">
+        {skymap.layout === "multiorder" ? "Multi-order" : skymap.layout === "flat-ring" ? "Flat RING" : "Flat NESTED"} map, {skymap.pixelCount.toLocaleString("en-US")} pixels
+        {skymap.revision ? `, revision ${skymap.revision}` : ""} · file total {skymap.totalProbability.toFixed(4)} ·{" "}
+        <a href={skymap.file.url} className="text-accent hover:underline">
+          {skymap.file.name}
+        </a>{" "}
+        ({formatBytes(skymap.file.sizeBytes)}) · stored <time dateTime={isoUtc(skymap.createdAt)} title={`${isoUtc(skymap.createdAt)} (UTC)`}>{formatInZone(skymap.createdAt, timeZone)}</time>
+        {skymap.uploadedBy ? ` by ${skymap.uploadedBy.name}` : " by the feed"}
+      </p>
+    </div>
+  );
+}
+
+function Figure({ label, value, hint, testId }: { label: string; value: string; hint?: string; testId?: string }) {
+  return (
+    <div className="rounded-md border border-line bg-sunken px-3 py-2">
+      <dt className="text-xs text-muted">{label}</dt>
+      <dd className="font-mono text-base" title={hint} data-testid={testId}>
+        {value}
+      </dd>
+    </div>
+  );
+}
