@@ -8,7 +8,7 @@ import { Dialog } from "@/components/ui/dialog";
 import { Field, Textarea } from "@/components/ui/field";
 import { cancelFormSchema, taskReportBodySchema } from "@/lib/validations/tasks";
 
-/** Reporting asks for a short result (files arrive with the sky-map issue's uploads); cancelling asks why. */
+/** Reporting asks for a short result (files are attached afterwards on the candidate page's report list); cancelling asks why. */
 export default function TaskTextDialog({
   mode,
   title,
@@ -28,7 +28,7 @@ export default function TaskTextDialog({
     defaultValues: { text: "" },
   });
   return (
-    <Dialog open onOpenChange={(open) => !open && onCancel()} title={title} description={report ? "What did you observe? A short result is enough; details can follow as notes." : "Say why, for the observer and the audit log."}>
+    <Dialog open onOpenChange={(open) => !open && onCancel()} title={title} description={report ? "What did you observe? A short result is enough. Attach images, tables or PDFs afterwards under Observation reports on the candidate page." : "Say why, for the observer and the audit log."}>
       <form onSubmit={handleSubmit(({ text }) => onConfirm(text.trim()))} className="space-y-4">
         <Field label={report ? "Result" : "Reason"} htmlFor="task-text" error={formState.errors.text?.message}>
           <Textarea id="task-text" autoFocus aria-invalid={Boolean(formState.errors.text)} {...register("text")} />
