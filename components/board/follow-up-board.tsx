@@ -6,12 +6,14 @@ import dynamic from "next/dynamic";
 import { usePathname, useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { queryKeys } from "@/components/live/query-keys";
-import { taskStates, type TaskState } from "@/db/schema/tasks";
+import type { TaskState } from "@/db/schema/tasks";
+import { taskStateIds as taskStates } from "@/lib/triage/states";
 import { apiFetch } from "@/lib/api-client";
 import type { TaskCard } from "@/lib/data/tasks";
 import { taskKindLabels, taskStateLabels } from "@/lib/triage/task-states";
 import { boardAnnouncements } from "./announcements";
 import { createKeyboardTargets } from "./keyboard-targets";
+import { ProgressiveCards } from "./progressive-cards";
 import type { SiteOption } from "./plan-follow-up-dialog";
 import { DraggableTaskCard, TaskCardBody } from "./task-card";
 import { TaskColumn } from "./task-column";
@@ -128,9 +130,10 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
                 count={columns[state].length}
                 dropState={!active ? "idle" : active.state === state ? "home" : activeActions.some((a) => a.to === state) ? "allowed" : "refused"}
               >
-                {columns[state].map((task) => (
-                  <DraggableTaskCard key={task.id} task={task} timeZone={viewer.timeZone} actions={taskActionsFor(task, viewer)} onAction={act} />
-                ))}
+                <ProgressiveCards
+                  items={columns[state]}
+                  render={(task) => <DraggableTaskCard key={task.id} task={task} timeZone={viewer.timeZone} actions={taskActionsFor(task, viewer)} onAction={act} />}
+                />
                 {columns[state].length === 0 ? <p className="px-1 py-4 text-center text-xs text-faint">{state === "open" ? "No open tasks. Tasks appear when a candidate goes for follow-up." : "Empty"}</p> : null}
               </TaskColumn>
             ))}

@@ -3,7 +3,8 @@
 import { Search } from "lucide-react";
 import { useEffect, useState } from "react";
 import { Input, Select } from "@/components/ui/field";
-import { taskKinds, type TaskKind } from "@/db/schema/tasks";
+import type { TaskKind } from "@/db/schema/tasks";
+import { taskKindIds as taskKinds } from "@/lib/triage/states";
 import { taskKindLabels } from "@/lib/triage/task-states";
 import type { SiteOption } from "./plan-follow-up-dialog";
 

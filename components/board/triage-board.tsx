@@ -19,7 +19,8 @@ import { toast } from "sonner";
 import { stageLabels } from "@/components/candidate/stage-badge";
 import { useLiveEvents } from "@/components/live/live-store";
 import { queryKeys } from "@/components/live/query-keys";
-import { triageStates, type Stage, type TriageState } from "@/db/schema/candidates";
+import type { Stage, TriageState } from "@/db/schema/candidates";
+import { triageStateIds as triageStates } from "@/lib/triage/states";
 import { apiFetch } from "@/lib/api-client";
 import type { BoardCard, BoardData } from "@/lib/data/candidates";
 import type { Roster, RosterPerson } from "@/lib/data/triage";
@@ -27,8 +28,8 @@ import { formatFalseAlarmRate } from "@/lib/format/far";
 import { canTransition, triageLabels, type TriageVia } from "@/lib/triage/transitions";
 import type { TaskDraft } from "@/lib/validations/tasks";
 import { boardAnnouncements, screenReaderInstructions } from "./announcements";
-import { CardActionsDialog } from "./card-actions-dialog";
 import { createKeyboardTargets } from "./keyboard-targets";
+import { ProgressiveCards } from "./progressive-cards";
 import { toastRefusal } from "./mutation-errors";
 import type { SiteOption } from "./plan-follow-up-dialog";
 import { RosterStrip } from "./roster-strip";
@@ -40,6 +41,7 @@ import { useTriageMutations } from "./use-triage-mutations";
 // Forms load on first use, keeping the board's first-load script small.
 const DismissDialog = dynamic(() => import("./dismiss-dialog"), { ssr: false });
 const PlanFollowUpDialog = dynamic(() => import("./plan-follow-up-dialog"), { ssr: false });
+const CardActionsDialog = dynamic(() => import("./card-actions-dialog").then((m) => m.CardActionsDialog), { ssr: false });
 
 const noSubscription = () => () => undefined;
 
@@ -87,6 +89,10 @@ export function TriageBoard({
   const columns = useMemo(() => {
     const grouped = Object.fromEntries(triageStates.map((s) => [s, [] as BoardCard[]])) as Record<TriageState, BoardCard[]>;
     for (const card of board.cards) grouped[card.triageState].push(card);
+    // New lists the newest arrival first; the other columns the latest change first, so a moved card is on top.
+    for (const state of triageStates) {
+      if (state !== "new") grouped[state].sort((a, b) => b.updatedAt - a.updatedAt || b.receivedAt - a.receivedAt);
+    }
     return grouped;
   }, [board.cards]);
   const peopleById = useMemo(() => new Map(roster.people.map((p) => [p.id, p])), [roster.people]);
@@ -213,16 +219,19 @@ export function TriageBoard({
                   !activeCard ? "idle" : activeCard.triageState === state ? "home" : canTransition(activeCard.triageState, state) ? "allowed" : "refused"
                 }
               >
-                {columns[state].map((card) => (
-                  <DraggableTriageCard
-                    key={card.id}
-                    card={card}
-                    canDrag={canTriage}
-                    deadlines={board.deadlines}
-                    timeZone={viewer.timeZone}
-                    onActions={openActions}
-                  />
-                ))}
+                <ProgressiveCards
+                  items={columns[state]}
+                  render={(card) => (
+                    <DraggableTriageCard
+                      key={card.id}
+                      card={card}
+                      canDrag={canTriage}
+                      deadlines={board.deadlines}
+                      timeZone={viewer.timeZone}
+                      onActions={openActions}
+                    />
+                  )}
+                />
                 {columns[state].length === 0 ? (
                   <p className="px-1 py-4 text-center text-xs text-faint">
                     {state === "new" ? "Nothing waiting. New triggers from the feed land here." : "Empty"}
@@ -240,20 +249,22 @@ export function TriageBoard({
           ) : null}
         </DragOverlay>
       </DndContext>
-      <CardActionsDialog
-        card={actionsCard}
-        roster={roster}
-        canTriage={canTriage}
-        onClose={() => setActionsFor(null)}
-        onMove={(card, to) => {
-          setActionsFor(null);
-          requestMove(card, to, "menu");
-        }}
-        onAssign={(card, person) => {
-          setActionsFor(null);
-          requestAssign(card, person, "menu");
-        }}
-      />
+      {actionsCard ? (
+        <CardActionsDialog
+          card={actionsCard}
+          roster={roster}
+          canTriage={canTriage}
+          onClose={() => setActionsFor(null)}
+          onMove={(card, to) => {
+            setActionsFor(null);
+            requestMove(card, to, "menu");
+          }}
+          onAssign={(card, person) => {
+            setActionsFor(null);
+            requestAssign(card, person, "menu");
+          }}
+        />
+      ) : null}
       {dismissing ? (
         <DismissDialog
           externalId={dismissing.card.externalId}

@@ -53,7 +53,7 @@ export function useTriageMutations() {
         json: { to, reason, via, expectedVersion: card.version },
       }),
     onMutate: ({ card, to }) =>
-      optimistic(card.id, (c) => ({ ...c, triageState: to, acknowledgedAt: c.acknowledgedAt ?? Date.now() })),
+      optimistic(card.id, (c) => ({ ...c, triageState: to, updatedAt: Date.now(), acknowledgedAt: c.acknowledgedAt ?? Date.now() })),
     onError: (error, _vars, context) => {
       if (context?.previous) queryClient.setQueryData(queryKeys.board, context.previous);
       toastRefusal(error, "Moving the candidate");

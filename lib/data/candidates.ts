@@ -37,6 +37,8 @@ export interface BoardCard {
   version: number;
   eventTime: number;
   receivedAt: number;
+  /** last change of any kind (triage move, assignment, revision); columns after New list the latest first */
+  updatedAt: number;
   acknowledgedAt: number | null;
   withdrawn: boolean;
   owner: PersonRef | null;
@@ -107,6 +109,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
     version: c.version,
     eventTime: c.eventTime.getTime(),
     receivedAt: c.receivedAt.getTime(),
+    updatedAt: c.updatedAt.getTime(),
     acknowledgedAt: c.acknowledgedAt?.getTime() ?? null,
     withdrawn: c.stage === "withdrawn" || c.withdrawnAt !== null,
     owner: owner?.id ? owner : null,

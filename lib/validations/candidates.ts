@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { sourceClasses, stages, triageStates } from "@/db/schema/candidates";
+import { sourceClassIds as sourceClasses, stageIds as stages, triageStateIds as triageStates } from "@/lib/triage/states";
 
 export const candidateSortKeys = [
   "receivedAt",

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { taskKinds, taskStates } from "@/db/schema/tasks";
+import { taskKindIds as taskKinds, taskStateIds as taskStates } from "@/lib/triage/states";
 
 /** An instant from a form or JSON: ISO text or epoch milliseconds; empty means none. */
 const optionalInstant = z

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { triageStates } from "@/db/schema/candidates";
+import { triageStateIds as triageStates } from "@/lib/triage/states";
 
 const vias = ["board", "menu", "email", "push", "api"] as const;
 
