@@ -59,9 +59,9 @@ export interface SunMoon {
 
 /** Sun and Moon positions (J2000, geocentric; Meeus ch. 25 and 47) now, refreshed every minute. */
 export function useSunMoonNow(): SunMoon | null {
-  const [now, setNow] = useState<Date | null>(null);
+  // only ever rendered in the browser (after the map list loads), so reading the clock here is safe
+  const [now, setNow] = useState<Date | null>(() => new Date());
   useEffect(() => {
-    setNow(new Date());
     const timer = setInterval(() => setNow(new Date()), 60_000);
     return () => clearInterval(timer);
   }, []);

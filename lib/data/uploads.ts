@@ -27,7 +27,6 @@ export function uploadUrl(id: string): string {
 /** A file name safe to keep and to send back in Content-Disposition: no paths, no control characters. */
 export function cleanFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? "";
-  // eslint-disable-next-line no-control-regex
   const cleaned = base.replace(/[\u0000-\u001f\u007f"]/g, "").trim().slice(0, 200);
   return cleaned || "upload";
 }

@@ -73,20 +73,20 @@ export async function insertCandidate(options: { triageState?: TriageState; rece
   return { id: row.id, source: row.source, externalId, revisionId: revision?.id ?? "" };
 }
 
-type Route = (req: NextRequest, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type Route<P> = (req: NextRequest, ctx: { params: Promise<P> }) => Promise<Response>;
 
-export interface CallOptions {
+export interface CallOptions<P> {
   caller?: Caller;
   method?: string;
   url?: string;
-  params?: Record<string, string>;
+  params?: P;
   headers?: Record<string, string>;
   body?: BodyInit;
   json?: unknown;
 }
 
 /** Calls a route handler the way Next does (NextRequest + params promise), without a server. */
-export async function call(route: Route, options: CallOptions): Promise<{ status: number; json: Record<string, unknown> & { error?: string }; res: Response }> {
+export async function call<P extends Record<string, string>>(route: Route<P>, options: CallOptions<P>): Promise<{ status: number; json: Record<string, unknown> & { error?: string }; res: Response }> {
   const headers: Record<string, string> = { ...options.headers };
   if (options.caller) headers.authorization = `Bearer ${options.caller.token}`;
   let body = options.body;
@@ -99,7 +99,7 @@ export async function call(route: Route, options: CallOptions): Promise<{ status
     headers,
     body,
   });
-  const res = await route(req, { params: Promise.resolve(options.params ?? {}) });
+  const res = await route(req, { params: Promise.resolve(options.params ?? ({} as P)) });
   const type = res.headers.get("content-type") ?? "";
   const json = type.includes("application/json") ? ((await res.clone().json()) as Record<string, unknown>) : {};
   return { status: res.status, json, res };

@@ -80,7 +80,7 @@ describe("the request itself", () => {
       call(uiRoute.POST, {
         caller: shifter,
         params: { id: candidate.id },
-        body: fixtureBytes("malformed/good-n16.fits"),
+        body: new Uint8Array(fixtureBytes("malformed/good-n16.fits")),
         headers: { "content-type": "application/fits" },
       }),
     );
