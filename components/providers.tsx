@@ -16,7 +16,7 @@ export function Providers({ children }: { children: React.ReactNode }) {
     <ThemeProvider attribute="class" defaultTheme="dark" themes={["dark", "light"]} enableSystem={false}>
       <QueryClientProvider client={queryClient}>
         {children}
-        <Toaster position="top-right" theme="system" richColors closeButton />
+        <Toaster position="top-right" offset={{ top: 56, right: 16 }} mobileOffset={{ top: 56 }} theme="system" richColors closeButton />
       </QueryClientProvider>
     </ThemeProvider>
   );
