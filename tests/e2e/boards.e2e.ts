@@ -8,7 +8,7 @@ import { check, type E2EContext } from "./types";
  */
 export default async function boardsE2E(ctx: E2EContext): Promise<void> {
   const tag = Date.now().toString(36).toUpperCase();
-  const names = { mouse: `EM${tag}`, keys: `EK${tag}`, menu: `EN${tag}` };
+  const names = { mouse: `EM${tag}`, keys: `EK${tag}`, menu: `EN${tag}`, pursue: `EP${tag}` };
   for (const externalId of Object.values(names)) {
     const res = await ctx.postCandidate(candidatePayload({ externalId, eventTime: new Date() }));
     check(res.status === 201, `feed post for ${externalId} answered ${res.status}: ${JSON.stringify(res.body)}`);
@@ -65,6 +65,39 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     await card(page, names.keys, "reviewing").waitFor();
     await card(page, names.menu, "dismissed").waitFor();
     ctx.log("all three moves persisted after a reload");
+
+    // Pursue opens the planning form; an observer claims the new task by dragging it, then reports.
+    await card(page, names.pursue).getByTestId("card-actions").click();
+    await page.getByRole("dialog").getByRole("button", { name: "Pursue" }).click();
+    const plan = page.getByRole("dialog");
+    await plan.locator("#task-0-kind").selectOption("spectroscopy");
+    await plan.locator("#task-0-notes").fill("slit on the brightest host candidate");
+    await plan.getByRole("button", { name: /Pursue and create 1 task/ }).click();
+    await card(page, names.pursue, "pursue").waitFor({ timeout: 10_000 });
+    ctx.log("the planning form moved the candidate to Pursue with one task");
+
+    const observer = await ctx.launchBrowser();
+    try {
+      const obs = await observer.context.newPage();
+      await ctx.signIn(obs, "bram@chirpdesk.test", "demo-observer");
+      await obs.goto(`${ctx.baseUrl}/follow-up?candidate=${names.pursue}`);
+      const task = obs.getByTestId("task-card").filter({ hasText: names.pursue });
+      await task.waitFor({ timeout: 15_000 });
+      check((await columnOf(task)) === "open", "the new task starts open");
+      await dragWithMouse(obs, task.getByRole("button", { name: /^Move / }), obs.locator('[data-column="claimed"]'));
+      const claimed = obs.locator('[data-column="claimed"]').getByTestId("task-card").filter({ hasText: names.pursue });
+      await claimed.filter({ hasText: "Bram Osei" }).waitFor({ timeout: 10_000 });
+      ctx.log("the observer claimed the task by dragging it");
+      await claimed.getByRole("button", { name: "Start observing" }).click();
+      const observing = obs.locator('[data-column="observing"]').getByTestId("task-card").filter({ hasText: names.pursue });
+      await observing.getByRole("button", { name: "Report" }).click();
+      await obs.locator("#task-text").fill("no new point source in the slit");
+      await obs.getByRole("dialog").getByRole("button", { name: "Report" }).click();
+      await obs.locator('[data-column="reported"]').getByTestId("task-card").filter({ hasText: "no new point source" }).waitFor({ timeout: 10_000 });
+      ctx.log("the observer started observing and reported a result");
+    } finally {
+      await observer.close();
+    }
   } catch (error) {
     for (const [name, browser] of [["shifter", shifter], ["watcher", watcher]] as const) {
       const open = browser.context.pages()[0];
@@ -92,6 +125,7 @@ async function columnOf(locator: Locator): Promise<string | null> {
 }
 
 async function dragWithMouse(page: Page, handle: Locator, target: Locator): Promise<void> {
+  await handle.scrollIntoViewIfNeeded();
   const from = await handle.boundingBox();
   const to = await target.boundingBox();
   check(from && to, "drag source and target are on screen");
