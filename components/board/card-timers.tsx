@@ -3,16 +3,8 @@
 import { Clock, Siren, TriangleAlert, Zap } from "lucide-react";
 import { cn } from "@/components/ui/cn";
 import { formatAge, formatCountdown, formatDuration } from "@/lib/format/duration";
+import { ackLevel, secondsToMerger, type AckDeadlines } from "@/lib/triage/ack-level";
 import { useNow } from "./use-now";
-
-export type AckLevel = "waiting" | "warn" | "alarm";
-
-/** Which side of the rota's acknowledgement deadlines an unacknowledged candidate is on. */
-export function ackLevel(elapsedS: number, deadlines: { acknowledgeWarnMinutes: number; acknowledgeAlarmMinutes: number }): AckLevel {
-  if (elapsedS >= deadlines.acknowledgeAlarmMinutes * 60) return "alarm";
-  if (elapsedS >= deadlines.acknowledgeWarnMinutes * 60) return "warn";
-  return "waiting";
-}
 
 const ackLook = {
   waiting: { icon: Clock, text: "Waiting", tone: "text-muted" },
@@ -26,7 +18,7 @@ export function AckTimer({
   deadlines,
 }: {
   receivedAt: number;
-  deadlines: { acknowledgeWarnMinutes: number; acknowledgeAlarmMinutes: number };
+  deadlines: AckDeadlines;
 }) {
   const now = useNow();
   if (now === null) return <span className="text-xs text-faint">Unacknowledged</span>;
@@ -43,12 +35,13 @@ export function AckTimer({
 
 /**
  * Live countdown to the expected merger of an early warning: the fitted coalescence time (seconds after eventTime)
- * minus the time since eventTime, i.e. lib/physics secondsToMergerAt, inlined to keep physics out of the board bundle.
+ * minus the time since eventTime (as lib/physics secondsToMergerAt; repeated in lib/triage to keep physics out of
+ * the board bundle).
  */
 export function MergerCountdown({ eventTime, coalescenceTimeS }: { eventTime: number; coalescenceTimeS: number | null }) {
   const now = useNow();
   if (now === null) return <span className="text-xs text-faint">Merger time pending</span>;
-  const seconds = (coalescenceTimeS ?? 0) - (now - eventTime) / 1000;
+  const seconds = secondsToMerger(coalescenceTimeS, eventTime, now);
   return (
     <span className={cn("inline-flex items-center gap-1 text-xs tabular-nums", seconds > 0 ? "text-warn font-semibold" : "text-muted")}>
       <Zap aria-hidden className="h-3.5 w-3.5" />
