@@ -12,4 +12,4 @@ export {
   uploadRoot,
   type StoredFile,
 } from "./file-store";
-export { parseMultipart, singleFile, type MultipartBody, type UploadedPart } from "./multipart";
+export { parseMultipart, requireMultipart, singleFile, type MultipartBody, type UploadedPart } from "./multipart";

@@ -13,17 +13,23 @@ export interface MultipartBody {
   fields: Record<string, string>;
 }
 
+/** Refuses (415) a request that is not multipart/form-data, before its body is read. */
+export function requireMultipart(contentType: string | null): string {
+  if (!contentType || !/^multipart\/form-data\s*;\s*boundary=/i.test(contentType)) {
+    throw new ApiError(415, "send the file as multipart/form-data (with a boundary)", { contentType });
+  }
+  return contentType;
+}
+
 /**
  * Parses a multipart/form-data body already read into memory (so a signature can be checked over the raw
  * bytes first) with the platform's own parser (`Response.formData()`, undici in Node). Not multipart → 415.
  */
 export async function parseMultipart(bytes: Uint8Array<ArrayBuffer>, contentType: string | null): Promise<MultipartBody> {
-  if (!contentType || !/^multipart\/form-data\s*;\s*boundary=/i.test(contentType)) {
-    throw new ApiError(415, "send the file as multipart/form-data (with a boundary)", { contentType });
-  }
+  const type = requireMultipart(contentType);
   let form: FormData;
   try {
-    form = await new Response(bytes, { headers: { "content-type": contentType } }).formData();
+    form = await new Response(bytes, { headers: { "content-type": type } }).formData();
   } catch (error) {
     throw new ApiError(400, `the multipart body could not be read: ${(error as Error).message}`);
   }

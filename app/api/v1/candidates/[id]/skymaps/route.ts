@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { listCandidateSkymaps, uploadSkymap } from "@/lib/data/skymaps";
-import { parseMultipart, readBodyBytes, singleFile } from "@/lib/storage";
+import { parseMultipart, readBodyBytes, requireMultipart, singleFile } from "@/lib/storage";
 import { maxSkymapBytes, skymapFileField } from "@/lib/validations/skymaps";
 
 export const GET = handler({ roles: can.read }, async ({ params }) => ({ skymaps: await listCandidateSkymaps(params.id ?? "") }));
@@ -12,6 +12,7 @@ export const GET = handler({ roles: can.read }, async ({ params }) => ({ skymaps
  * with a limit (413 from Content-Length, else while reading), then parsed with the platform's FormData parser.
  */
 export const POST = handler({ roles: can.uploadSkymap }, async ({ req, user, params }) => {
+  requireMultipart(req.headers.get("content-type"));
   const raw = await readBodyBytes(req, maxSkymapBytes + 64 * 1024);
   const file = singleFile(await parseMultipart(raw, req.headers.get("content-type")), skymapFileField);
   const answer = await uploadSkymap({

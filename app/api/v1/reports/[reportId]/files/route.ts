@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { attachReportFiles, listReportFiles } from "@/lib/data/uploads";
-import { parseMultipart, readBodyBytes } from "@/lib/storage";
+import { parseMultipart, readBodyBytes, requireMultipart } from "@/lib/storage";
 import { maxReportRequestBytes, reportFilesField } from "@/lib/validations/uploads";
 
 export const GET = handler({ roles: can.read }, async ({ params }) => ({ files: await listReportFiles(params.reportId ?? "") }));
@@ -12,6 +12,7 @@ export const GET = handler({ roles: can.read }, async ({ params }) => ({ files: 
  * (by its first bytes) before any is stored; all or none are attached.
  */
 export const POST = handler({ roles: can.claimTask }, async ({ req, user, params }) => {
+  requireMultipart(req.headers.get("content-type"));
   const raw = await readBodyBytes(req, maxReportRequestBytes);
   const body = await parseMultipart(raw, req.headers.get("content-type"));
   const files = body.files.filter((f) => f.field === reportFilesField);
