@@ -10,7 +10,7 @@ import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { createServer } from "node:net";
-import { tmpdir } from "node:os";
+import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { parseArgs } from "node:util";
 import webpush from "web-push";
@@ -41,6 +41,16 @@ function freePort(): Promise<number> {
       server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
     });
   });
+}
+
+/** CPU seconds (user + system) a process has used so far, from /proc (Linux; clock ticks of 1/100 s). */
+function processCpuSeconds(pid: number): number {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]?.split(" ") ?? [];
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return Number.NaN;
+  }
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -158,7 +168,10 @@ async function main(): Promise<void> {
     const warm = makePostsForWarmup();
     await postAll(baseUrl, warm, secret);
 
+    const serverPid = server.pid ?? 0;
+    const cpuBefore = processCpuSeconds(serverPid);
     const served2 = await postAll(baseUrl, posts, secret);
+    const serverCpuMs = ((processCpuSeconds(serverPid) - cpuBefore) * 1000) / posts.length;
     const sorted = [...served2.latencies].sort((a, b) => a - b);
     const throughput = (posts.length / served2.wallMs) * 1000;
     console.log("\nHTTP ingest (next start, production build)");
@@ -168,20 +181,25 @@ async function main(): Promise<void> {
     console.log(`  latency p99      ${percentile(sorted, 99).toFixed(1)} ms`);
     console.log(`  latency max      ${(sorted.at(-1) ?? Number.NaN).toFixed(1)} ms`);
     console.log(`  throughput       ${throughput.toFixed(0)} candidates/s (wall ${(served2.wallMs / 1000).toFixed(2)} s)`);
+    console.log(`  server CPU       ${serverCpuMs.toFixed(1)} ms per candidate (user + system, from /proc)`);
 
     console.log("\nprecomputing derived quantities for the direct insert (not timed) …");
     const rows = await precomputeRows(posts);
     const directUrl = `file:${path.join(work, "direct.db")}`;
     const direct = await openDatabase(directUrl);
     await migrateDatabase(direct);
+    const directCpu = process.cpuUsage();
     const directMs = await insertDirect(direct.$client, rows);
+    const { user, system } = process.cpuUsage(directCpu);
     direct.$client.close();
     const directRate = (rows.length / directMs) * 1000;
     console.log("\nDirect libSQL inserts (one write transaction per candidate, same tables and statements)");
     console.log(`  time             ${directMs.toFixed(0)} ms for ${rows.length} (${(directMs / rows.length).toFixed(2)} ms each)`);
     console.log(`  throughput       ${directRate.toFixed(0)} candidates/s`);
+    console.log(`  CPU              ${((user + system) / 1000 / rows.length).toFixed(2)} ms per candidate`);
     console.log(`\noverhead ratio (HTTP wall time / direct time)  ${(served2.wallMs / directMs).toFixed(2)}×`);
     console.log("targets from the issue: p99 < 50 ms, ≥ 300 candidates/s, overhead < 3×");
+    console.log(`load average at the end: ${loadavg().map((l) => l.toFixed(1)).join(" ")} on ${cpus().length} CPUs (other work on the machine skews wall-clock figures)`);
   } finally {
     if (server?.pid) {
       try {
