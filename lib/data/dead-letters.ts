@@ -2,7 +2,6 @@ import { count, desc, eq, lt } from "drizzle-orm";
 import { getDb } from "@/db";
 import { deadLetters } from "@/db/schema";
 import type { FieldIssue } from "@/lib/api/errors";
-import { withWriteLock } from "@/lib/feed/write-lock";
 
 export interface DeadLetterInput {
   receivedAt: Date;
@@ -32,21 +31,19 @@ function senderOf(rawBody: string): { source: string | null; externalId: string 
 /** Keeps a refused (but correctly signed) feed post, raw, with the reason it was refused. */
 export async function recordDeadLetter(input: DeadLetterInput): Promise<string> {
   const db = await getDb();
-  return withWriteLock(async () => {
-    const [row] = await db
-      .insert(deadLetters)
-      .values({
-        receivedAt: input.receivedAt,
-        statusCode: input.statusCode,
-        reason: input.reason.slice(0, 2000),
-        issues: input.issues ?? null,
-        rawBody: input.rawBody,
-        ...senderOf(input.rawBody),
-      })
-      .returning({ id: deadLetters.id });
-    if (!row) throw new Error("dead letter insert returned nothing");
-    return row.id;
-  });
+  const [row] = await db
+    .insert(deadLetters)
+    .values({
+      receivedAt: input.receivedAt,
+      statusCode: input.statusCode,
+      reason: input.reason.slice(0, 2000),
+      issues: input.issues ?? null,
+      rawBody: input.rawBody,
+      ...senderOf(input.rawBody),
+    })
+    .returning({ id: deadLetters.id });
+  if (!row) throw new Error("dead letter insert returned nothing");
+  return row.id;
 }
 
 export interface DeadLetterSummary {
