@@ -15,7 +15,6 @@ import {
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import type { CandidateListQuery, CandidateSortKey } from "@/lib/validations/candidates";
 import { appendEvent } from "./events";
 import { getSetting } from "./settings";
@@ -240,8 +239,7 @@ export async function listNotes(candidateId: string): Promise<NoteView[]> {
 /** Adds a note to a candidate's thread, with its audit event. */
 export async function addNote(actor: SessionUser, candidateId: string, body: string, now = new Date()): Promise<NoteView> {
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const [candidate] = await tx.select({ id: candidates.id }).from(candidates).where(eq(candidates.id, candidateId));
       if (!candidate) throw new ApiError(404, "candidate not found");
       const [note] = await tx.insert(candidateNotes).values({ candidateId, authorId: actor.id, body, createdAt: now }).returning();
@@ -253,8 +251,7 @@ export async function addNote(actor: SessionUser, candidateId: string, body: str
         createdAt: note.createdAt.getTime(),
         author: { id: actor.id, name: actor.name, initials: actor.initials },
       };
-    }),
-  );
+    });
 }
 
 export interface AuditEntry {

@@ -3,7 +3,6 @@ import { getDb } from "@/db";
 import { notifications, users, type Channel, type NotificationStatus } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
-import { withWriteLock } from "@/lib/feed/write-lock";
 
 export interface Delivery {
   channel: Channel;
@@ -80,7 +79,7 @@ export async function countUnread(userId: string): Promise<number> {
 /** Marks the person's own notifications read (all copies of each message); others' ids are ignored. */
 export async function markRead(userId: string, target: { ids: string[] } | { all: true }, now = new Date()): Promise<number> {
   const db = await getDb();
-  await withWriteLock(async () => {
+  await (async () => {
     const mine = and(eq(notifications.userId, userId), isNull(notifications.readAt));
     if ("all" in target) {
       await db.update(notifications).set({ readAt: now }).where(mine);
@@ -90,7 +89,7 @@ export async function markRead(userId: string, target: { ids: string[] } | { all
     const eventIds = picked.flatMap((p) => (p.eventId === null ? [] : [p.eventId]));
     await db.update(notifications).set({ readAt: now }).where(and(mine, inArray(notifications.id, target.ids)));
     if (eventIds.length > 0) await db.update(notifications).set({ readAt: now }).where(and(mine, inArray(notifications.eventId, eventIds)));
-  });
+  })();
   return countUnread(userId);
 }
 
@@ -132,12 +131,10 @@ export async function listFailedNotifications(limit = 100): Promise<FailedNotifi
 /** Puts a failed message back in the outbox with a fresh attempt budget. */
 export async function retryFailedNotification(_actor: SessionUser, id: string, now = new Date()): Promise<void> {
   const db = await getDb();
-  const done = await withWriteLock(() =>
-    db
+  const done = await db
       .update(notifications)
       .set({ status: "pending", attempts: 0, nextAttemptAt: now, lockedBy: null, lockedUntil: null })
       .where(and(eq(notifications.id, id), eq(notifications.status, "failed")))
-      .returning({ id: notifications.id }),
-  );
+      .returning({ id: notifications.id });
   if (done.length === 0) throw new ApiError(404, "no failed notification with that id");
 }

@@ -5,7 +5,6 @@ import { shifts, users, type Shift } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import type { ShiftInput } from "@/lib/validations/rota";
 import { appendEvent, type Tx } from "./events";
 
@@ -107,40 +106,34 @@ function requireRotaManager(actor: SessionUser): void {
 export async function createShift(actor: SessionUser, input: ShiftInput, now = new Date()): Promise<Shift> {
   requireRotaManager(actor);
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       await checkPeople(tx, input);
       const [row] = await tx.insert(shifts).values({ ...input, createdAt: now }).returning();
       if (!row) throw new Error("shift insert returned nothing");
       await appendEvent(tx, { at: now, kind: eventKinds.shiftChanged, actorId: actor.id, data: { shiftId: row.id, action: "created" } });
       return row;
-    }),
-  );
+    });
 }
 
 export async function updateShift(actor: SessionUser, id: string, input: ShiftInput, now = new Date()): Promise<Shift> {
   requireRotaManager(actor);
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       await checkPeople(tx, input);
       // A changed end re-arms the end-of-shift handoff.
       const [row] = await tx.update(shifts).set({ ...input, handoffQueuedAt: null }).where(eq(shifts.id, id)).returning();
       if (!row) throw new ApiError(404, "shift not found");
       await appendEvent(tx, { at: now, kind: eventKinds.shiftChanged, actorId: actor.id, data: { shiftId: id, action: "updated" } });
       return row;
-    }),
-  );
+    });
 }
 
 export async function deleteShift(actor: SessionUser, id: string, now = new Date()): Promise<void> {
   requireRotaManager(actor);
   const db = await getDb();
-  await withWriteLock(() =>
-    db.transaction(async (tx) => {
+  await db.transaction(async (tx) => {
       const [row] = await tx.delete(shifts).where(eq(shifts.id, id)).returning({ id: shifts.id });
       if (!row) throw new ApiError(404, "shift not found");
       await appendEvent(tx, { at: now, kind: eventKinds.shiftChanged, actorId: actor.id, data: { shiftId: id, action: "deleted" } });
-    }),
-  );
+    });
 }

@@ -12,7 +12,6 @@ import {
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { onTasksCancelled } from "@/lib/notify/hooks";
 import { allowedTaskMoves, canMoveTask, taskStateLabels } from "@/lib/triage/task-states";
 import type { TaskDraft, TaskListQuery } from "@/lib/validations/tasks";
@@ -104,8 +103,7 @@ export async function createTasks(
 ): Promise<FollowUpTask[]> {
   requireRole(actor, can.planFollowUp, "plan follow-up");
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const [candidate] = await tx.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
       if (!candidate) throw new ApiError(404, "candidate not found");
       if (candidate.stage === "withdrawn") throw new ApiError(422, "the feed withdrew this candidate; no new tasks");
@@ -136,8 +134,7 @@ export async function createTasks(
         });
       }
       return created;
-    }),
-  );
+    });
 }
 
 /**
@@ -147,8 +144,7 @@ export async function createTasks(
 export async function claimTask(actor: SessionUser, taskId: string, now: Date = new Date()): Promise<FollowUpTask> {
   requireRole(actor, can.claimTask, "claim tasks");
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const [won] = await tx
         .update(followUpTasks)
         .set({
@@ -172,8 +168,7 @@ export async function claimTask(actor: SessionUser, taskId: string, now: Date = 
         data: { claimedById: actor.id },
       });
       return won;
-    }),
-  );
+    });
 }
 
 async function claimRefusal(tx: Tx, taskId: string): Promise<ApiError> {
@@ -203,8 +198,7 @@ export async function moveTask(input: TaskMoveInput): Promise<FollowUpTask> {
   const { actor, taskId, to } = input;
   requireRole(actor, to === "cancelled" ? can.planFollowUp : can.claimTask, to === "cancelled" ? "cancel tasks" : "work on tasks");
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const now = input.now ?? new Date();
       const task = await readTaskForMove(tx, taskId, to, input.expectedVersion);
       if (to !== "cancelled") requireClaimerOrCoordinator(actor, task);
@@ -241,8 +235,7 @@ export async function moveTask(input: TaskMoveInput): Promise<FollowUpTask> {
         });
       }
       return updated;
-    }),
-  );
+    });
 }
 
 /** Records the observer's result; the task is then reported (final). */
@@ -254,8 +247,7 @@ export async function reportTask(
 ): Promise<{ task: FollowUpTask; reportId: string }> {
   requireRole(actor, can.claimTask, "report tasks");
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const task = await readTaskForMove(tx, taskId, "reported");
       requireClaimerOrCoordinator(actor, task);
       const [report] = await tx
@@ -280,8 +272,7 @@ export async function reportTask(
         data: { reportId: report.id },
       });
       return { task: updated, reportId: report.id };
-    }),
-  );
+    });
 }
 
 async function readTaskForMove(tx: Tx, taskId: string, to: TaskState, expectedVersion?: number): Promise<FollowUpTask> {

@@ -5,7 +5,6 @@ import { candidates, events, shifts, users, type AppEvent, type Candidate, type 
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { onCandidateAcknowledged } from "@/lib/notify/hooks";
 import {
   acknowledges,
@@ -58,8 +57,7 @@ export async function transitionCandidate(input: TransitionInput): Promise<Trans
     throw new ApiError(422, "dismissing needs a reason", { issues: [{ path: "reason", message: "required" }] });
   }
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const now = input.now ?? new Date();
       const current = await readCandidate(tx, candidateId);
       if (input.expectedVersion !== undefined && input.expectedVersion !== current.version) {
@@ -103,8 +101,7 @@ export async function transitionCandidate(input: TransitionInput): Promise<Trans
       });
       if (acknowledging) await onCandidateAcknowledged(tx, { candidateId, userId: actor.id, at: now });
       return { candidate: updated, event };
-    }),
-  );
+    });
 }
 
 export interface AssignInput {
@@ -124,8 +121,7 @@ export async function assignCandidate(input: AssignInput): Promise<TransitionRes
     throw new ApiError(403, `your role (${actor.role}) may not assign candidates; allowed: ${can.triage.join(", ")}`);
   }
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const now = input.now ?? new Date();
       const current = await readCandidate(tx, candidateId);
       if (input.expectedVersion !== undefined && input.expectedVersion !== current.version) {
@@ -153,8 +149,7 @@ export async function assignCandidate(input: AssignInput): Promise<TransitionRes
         data: { ownerId, previousOwnerId: current.ownerId, via, version: updated.version },
       });
       return { candidate: updated, event };
-    }),
-  );
+    });
 }
 
 async function readCandidate(tx: Tx, candidateId: string): Promise<Candidate> {

@@ -4,7 +4,6 @@ import { ackTokens, candidates, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
 import { transitionCandidate } from "@/lib/data/triage";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { ackLinkSecret, verifyAckToken } from "./ack-links";
 import type { CandidateSummary } from "./content";
 
@@ -95,9 +94,7 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
   if (check.usedAt) return fail("used");
   const actor = await actorOf(check.claims.userId);
   if (!actor) return fail("forged");
-  const spent = await withWriteLock(() =>
-    db.update(ackTokens).set({ usedAt: now }).where(and(eq(ackTokens.id, check.claims.id), isNull(ackTokens.usedAt))).returning({ id: ackTokens.id }),
-  );
+  const spent = await db.update(ackTokens).set({ usedAt: now }).where(and(eq(ackTokens.id, check.claims.id), isNull(ackTokens.usedAt))).returning({ id: ackTokens.id });
   if (spent.length === 0) return fail("used");
   const candidateId = check.claims.candidateId;
   try {
@@ -110,7 +107,7 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
     // 403: the role cannot triage; 409/422: someone moved it first — then it is "already", below.
     if (error instanceof ApiError && error.status === 403) return fail("not-allowed");
     if (!(error instanceof ApiError && (error.status === 409 || error.status === 422))) {
-      await withWriteLock(() => db.update(ackTokens).set({ usedAt: null }).where(eq(ackTokens.id, check.claims.id)));
+      await db.update(ackTokens).set({ usedAt: null }).where(eq(ackTokens.id, check.claims.id));
       throw error;
     }
   }

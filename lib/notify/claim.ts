@@ -3,7 +3,6 @@ import { getDb } from "@/db";
 import { notifications, type Notification } from "@/db/schema";
 import { appendEvent } from "@/lib/data/events";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import type { NotificationPayload } from "./outbox";
 
 /** Rows a worker may take: waiting or abandoned by a worker whose lease ran out, due now, on an outside channel. */
@@ -26,8 +25,7 @@ export async function claimDueNotifications(workerId: string, now: Date, leaseMs
   // A plain read first, so an idle worker never takes the write lock.
   const [any] = await db.select({ id: notifications.id }).from(notifications).where(claimable(now)).limit(1);
   if (!any) return [];
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const due = tx.select({ id: notifications.id }).from(notifications).where(claimable(now)).orderBy(asc(notifications.nextAttemptAt)).limit(limit);
       return tx
         .update(notifications)
@@ -39,8 +37,7 @@ export async function claimDueNotifications(workerId: string, now: Date, leaseMs
         })
         .where(and(inArray(notifications.id, due), claimable(now)))
         .returning();
-    }),
-  );
+    });
 }
 
 export type Outcome =
@@ -54,7 +51,7 @@ export async function recordOutcome(row: Notification, workerId: string, outcome
   const db = await getDb();
   const mine = and(eq(notifications.id, row.id), eq(notifications.lockedBy, workerId), eq(notifications.status, "sending"));
   const release = { lockedBy: null, lockedUntil: null, ...(outcome.payload ? { payload: outcome.payload } : {}) };
-  return withWriteLock(async () => {
+  return (async () => {
     if (outcome.status === "failed") {
       return db.transaction(async (tx) => {
         const [done] = await tx
@@ -81,5 +78,5 @@ export async function recordOutcome(row: Notification, workerId: string, outcome
           : { ...release, status: "pending" as const, nextAttemptAt: outcome.nextAttemptAt, lastError: outcome.error.slice(0, 1000) };
     const [done] = await db.update(notifications).set(set).where(mine).returning({ id: notifications.id });
     return Boolean(done);
-  });
+  })();
 }

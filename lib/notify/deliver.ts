@@ -2,7 +2,6 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db";
 import { candidates, pushSubscriptions, users, type Notification, type PagingPreferences } from "@/db/schema";
 import { onCallPrimaryUntil } from "@/lib/data/rota";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { retryDelayMs, type BackoffOptions } from "./backoff";
 import { renderEmail } from "./channels/email-content";
 import type { EmailSender } from "./channels/email";
@@ -113,10 +112,10 @@ async function deliverPush(row: Notification, payload: NotificationPayload, ctx:
       if (!attempt) return;
       if (attempt.ok) {
         already.add(device.id);
-        await withWriteLock(() => db.update(pushSubscriptions).set({ lastSuccessAt: ctx.now }).where(eq(pushSubscriptions.id, device.id)));
+        await db.update(pushSubscriptions).set({ lastSuccessAt: ctx.now }).where(eq(pushSubscriptions.id, device.id));
       } else if (attempt.gone) {
         gone += 1;
-        await withWriteLock(() => db.delete(pushSubscriptions).where(eq(pushSubscriptions.id, device.id)));
+        await db.delete(pushSubscriptions).where(eq(pushSubscriptions.id, device.id));
       } else (attempt.permanent ? permanent : transient).push(attempt.error);
     }),
   );

@@ -2,7 +2,6 @@ import { and, asc, eq } from "drizzle-orm";
 import { getDb } from "@/db";
 import { pushSubscriptions } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import type { PushSubscribeInput } from "@/lib/validations/paging";
 
 export interface DeviceView {
@@ -38,13 +37,11 @@ export async function listDevices(userId: string): Promise<DeviceView[]> {
 export async function subscribeDevice(userId: string, input: PushSubscribeInput, now = new Date()): Promise<DeviceView> {
   const db = await getDb();
   const values = { userId, endpoint: input.endpoint, p256dh: input.keys.p256dh, auth: input.keys.auth, label: input.label };
-  const [row] = await withWriteLock(() =>
-    db
+  const [row] = await db
       .insert(pushSubscriptions)
       .values({ ...values, createdAt: now })
       .onConflictDoUpdate({ target: pushSubscriptions.endpoint, set: values })
-      .returning(),
-  );
+      .returning();
   if (!row) throw new Error("subscription upsert returned nothing");
   return view(row);
 }
@@ -52,8 +49,6 @@ export async function subscribeDevice(userId: string, input: PushSubscribeInput,
 export async function removeDevice(userId: string, by: { id: string } | { endpoint: string }): Promise<void> {
   const db = await getDb();
   const match = "id" in by ? eq(pushSubscriptions.id, by.id) : eq(pushSubscriptions.endpoint, by.endpoint);
-  const gone = await withWriteLock(() =>
-    db.delete(pushSubscriptions).where(and(match, eq(pushSubscriptions.userId, userId))).returning({ id: pushSubscriptions.id }),
-  );
+  const gone = await db.delete(pushSubscriptions).where(and(match, eq(pushSubscriptions.userId, userId))).returning({ id: pushSubscriptions.id });
   if (gone.length === 0) throw new ApiError(404, "no such device of yours");
 }

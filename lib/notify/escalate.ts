@@ -4,7 +4,6 @@ import { candidates, escalations } from "@/db/schema";
 import { appendEvent } from "@/lib/data/events";
 import { findShiftAt } from "@/lib/data/rota";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import type { EscalationTarget } from "@/lib/validations/paging";
 import { candidateTextFor } from "./content";
 import { candidatePath } from "./links";
@@ -29,8 +28,7 @@ export async function fireDueEscalations(workerId: string, now: Date, limit = 50
   const db = await getDb();
   const [any] = await db.select({ id: escalations.id }).from(escalations).where(due(now)).limit(1);
   if (!any) return { fired: 0, cancelled: 0 };
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const rows = await tx.select().from(escalations).where(due(now)).orderBy(asc(escalations.dueAt)).limit(limit);
       const run: EscalationRun = { fired: 0, cancelled: 0 };
       for (const timer of rows) {
@@ -69,6 +67,5 @@ export async function fireDueEscalations(workerId: string, now: Date, limit = 50
         run.fired += 1;
       }
       return run;
-    }),
-  );
+    });
 }

@@ -5,7 +5,6 @@ import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { Tx } from "@/lib/data/events";
 import { onCallPrimaryUntil } from "@/lib/data/rota";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import type { PreferencesInput } from "@/lib/validations/paging";
 
 export const defaultPreferences = (taskSiteIds: string[] = []): PagingPreferences => ({
@@ -69,11 +68,9 @@ export async function savePreferences(user: SessionUser, input: PreferencesInput
     throw new ApiError(422, `unknown site ${unknown[0]}`, { issues: [{ path: "taskSiteIds", message: "unknown site" }] });
   }
   const preferences: PagingPreferences = { ...input, taskSiteIds: [...new Set(input.taskSiteIds)] };
-  await withWriteLock(() =>
-    db
+  await db
       .insert(notificationPreferences)
       .values({ userId: user.id, preferences, updatedAt: now })
-      .onConflictDoUpdate({ target: notificationPreferences.userId, set: { preferences, updatedAt: now } }),
-  );
+      .onConflictDoUpdate({ target: notificationPreferences.userId, set: { preferences, updatedAt: now } });
   return getPreferencesView(user, now);
 }

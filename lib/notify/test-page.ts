@@ -2,14 +2,12 @@ import { getDb } from "@/db";
 import type { SessionUser } from "@/lib/auth/roles";
 import { appendEvent } from "@/lib/data/events";
 import { eventKinds } from "@/lib/events/kinds";
-import { withWriteLock } from "@/lib/feed/write-lock";
 import { queueNotifications } from "./outbox";
 
 /** A test message to the person's own devices and inbox, through the same outbox and worker as a real page. */
 export async function queueTestPage(user: SessionUser, now = new Date()): Promise<{ eventId: number }> {
   const db = await getDb();
-  return withWriteLock(() =>
-    db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
       const event = await appendEvent(tx, {
         at: now,
         kind: eventKinds.pageQueued,
@@ -30,6 +28,5 @@ export async function queueTestPage(user: SessionUser, now = new Date()): Promis
         [user.id],
       );
       return { eventId: event.id };
-    }),
-  );
+    });
 }

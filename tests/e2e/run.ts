@@ -34,7 +34,7 @@ const push = await startFakePush();
 const smtp = await startFakeSmtp();
 const port = await freePort();
 const databaseUrl = `file:${path.join(work, "e2e.db")}`;
-const env = { ...productionEnv({ port, databaseUrl, smtpPort: smtp.smtpPort, distDir }), UPLOAD_DIR: path.join(work, "uploads") };
+const env: Record<string, string> = { ...productionEnv({ port, databaseUrl, smtpPort: smtp.smtpPort, distDir }), UPLOAD_DIR: path.join(work, "uploads") };
 
 // Migrate and seed the demo scenario through the same script production uses.
 execFileSync("node_modules/.bin/tsx", ["scripts/seed.ts"], { stdio: "inherit", env: { ...process.env, ...env, NODE_ENV: "development" } });
