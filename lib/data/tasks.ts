@@ -12,7 +12,7 @@ import {
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
-import { onTasksCancelled } from "@/lib/notify/hooks";
+import { onTasksCancelled, onTasksCreated } from "@/lib/notify/hooks";
 import { allowedTaskMoves, canMoveTask, taskStateLabels } from "@/lib/triage/task-states";
 import type { TaskDraft, TaskListQuery } from "@/lib/validations/tasks";
 import { appendEvent, type Tx } from "./events";
@@ -122,8 +122,9 @@ export async function createTasks(
         .insert(followUpTasks)
         .values(drafts.map((d) => ({ ...d, candidateId, createdById: actor.id, createdAt: now, updatedAt: now })))
         .returning();
+      let firstEventId: number | null = null;
       for (const task of created) {
-        await appendEvent(tx, {
+        const event = await appendEvent(tx, {
           at: now,
           kind: eventKinds.taskCreated,
           actorId: actor.id,
@@ -132,7 +133,10 @@ export async function createTasks(
           toState: task.state,
           data: { kind: task.kind, siteId: task.siteId, priority: task.priority },
         });
+        firstEventId ??= event.id;
       }
+      // Observers who follow these sites hear about the new tasks, committed with them.
+      if (firstEventId !== null) await onTasksCreated(tx, { candidateId, eventId: firstEventId, taskIds: created.map((t) => t.id) });
       return created;
     });
 }

@@ -1,7 +1,7 @@
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { events, followUpTasks, sites, taskReports, type Role } from "@/db/schema";
+import { events, followUpTasks, notifications, siteObservers, sites, taskReports, type Role } from "@/db/schema";
 import { GET as candidateTasksGet, POST as createTasksRoute } from "@/app/api/v1/candidates/[id]/tasks/route";
 import { POST as claimRoute } from "@/app/api/v1/tasks/[id]/claim/route";
 import { POST as reportRoute } from "@/app/api/v1/tasks/[id]/report/route";
@@ -136,5 +136,18 @@ describe("the follow-up board's filters", () => {
     const [task] = await db.select().from(followUpTasks).where(eq(followUpTasks.id, id));
     expect((await list(`candidate=${task?.candidateId}`)).map((t) => t.id)).toEqual([id]);
     expect((await callRoute(listRoute, { caller: c.observer, url: "http://localhost/api/v1/tasks?kind=bogus" })).status).toBe(422);
+  });
+});
+
+describe("observers hear about new tasks at their sites", () => {
+  it("queues a task message for the site's observer in the same transaction as the tasks, and none for others", async () => {
+    const db = await getDb();
+    await db.insert(siteObservers).values({ siteId, userId: c.observer2.user.id });
+    const id = await insertCandidate({ triageState: "pursue" });
+    const res = await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft(), draft({ kind: "spectroscopy" })] } });
+    expect(res.status).toBe(201);
+    const rows = await db.select().from(notifications).where(and(eq(notifications.candidateId, id), eq(notifications.kind, "task-created")));
+    expect(new Set(rows.map((r) => r.userId))).toEqual(new Set([c.observer2.user.id]));
+    expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/New tasks: .*galaxy-targeted at QTR/); expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/spectroscopy at QTR/);
   });
 });
