@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
-import { roles, type Role } from "@/db/schema/users";
+import { roles, type Role } from "@/db/schema/roles";
 import { roleLabels } from "@/lib/auth/roles";
 import { createUserSchema, type CreateUserInput } from "@/lib/validations/users";
 

@@ -17,7 +17,7 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Select } from "@/components/ui/field";
-import { roles, type Role } from "@/db/schema/users";
+import { roles, type Role } from "@/db/schema/roles";
 import { apiFetch, ApiClientError } from "@/lib/api-client";
 import { roleLabels, type SessionUser } from "@/lib/auth/roles";
 import type { PublicUser } from "@/lib/data/users";

@@ -1,4 +1,4 @@
-import type { Role } from "@/db/schema";
+import type { Role } from "@/db/schema/roles";
 
 export interface NavItem {
   href: string;

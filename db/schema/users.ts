@@ -1,8 +1,9 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import { createdAt, idColumn, instant } from "./columns";
 
-export const roles = ["shifter", "observer", "coordinator", "admin"] as const;
-export type Role = (typeof roles)[number];
+import { roles } from "./roles";
+
+export { roles, type Role } from "./roles";
 
 export const users = sqliteTable(
   "users",

@@ -1,7 +1,6 @@
-import type { Role } from "@/db/schema";
+import type { Role } from "@/db/schema/roles";
 
-export type { Role } from "@/db/schema";
-export { roles } from "@/db/schema";
+export { roles, type Role } from "@/db/schema/roles";
 
 /** The signed-in person as every guard and domain function sees them. */
 export interface SessionUser {

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { roles } from "@/db/schema";
+import { roles } from "@/db/schema/roles";
 
 /** IANA zone names the runtime knows, so a typo cannot reach the database. */
 export const timeZoneSchema = z
