@@ -2,15 +2,9 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-or
 import { createdAt, idColumn, instant } from "./columns";
 import { users } from "./users";
 
-export const stages = ["early-warning", "first-look", "confirmed", "revised", "withdrawn"] as const;
-export type Stage = (typeof stages)[number];
+import { sourceClasses, stages, triageStates } from "./candidate-values";
 
-/** Triage columns of the board, in board order. */
-export const triageStates = ["new", "acknowledged", "reviewing", "pursue", "dismissed", "expert"] as const;
-export type TriageState = (typeof triageStates)[number];
-
-export const sourceClasses = ["bns", "nsbh", "bbh", "lowerGap"] as const;
-export type SourceClass = (typeof sourceClasses)[number];
+export * from "./candidate-values";
 
 export const candidates = sqliteTable(
   "candidates",

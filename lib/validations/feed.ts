@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { stages } from "@/db/schema/candidates";
+import { stages } from "@/db/schema/candidate-values";
 import { detectorCodePattern } from "@/lib/feed/network";
 
 /** A track longer than this is refused with 422 after the schema check (the 5 MB body limit comes first). */

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { stages } from "@/db/schema/candidates";
+import { stages } from "@/db/schema/candidate-values";
 
 /** Local wall-clock time "HH:mm" (24 h). */
 export const localTimeSchema = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, "use HH:mm, 24-hour");

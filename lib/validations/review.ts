@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { sourceClasses, stages } from "@/db/schema/candidates";
+import { sourceClasses, stages } from "@/db/schema/candidate-values";
 import { histogramBinKeys } from "@/lib/review/histogram";
 import { stepIds } from "@/lib/review/steps";
 
