@@ -22,7 +22,7 @@ function localPath(url: string): string | null {
  */
 export async function openDatabase(url: string, authToken?: string): Promise<Database> {
   const file = localPath(url);
-  if (file && file !== ":memory:") mkdirSync(path.dirname(path.resolve(file)), { recursive: true });
+  if (file && file !== ":memory:") mkdirSync(path.dirname(path.resolve(/*turbopackIgnore: true*/ file)), { recursive: true });
   const raw = createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS });
   if (file) {
     await raw.execute("PRAGMA journal_mode = WAL");

@@ -2,6 +2,7 @@ import { eq } from "drizzle-orm";
 import { getServerSession } from "next-auth";
 import { headers } from "next/headers";
 import { redirect } from "next/navigation";
+import { connection } from "next/server";
 import { getDb } from "@/db";
 import { users } from "@/db/schema";
 import { resolveApiToken } from "./api-tokens";
@@ -19,6 +20,8 @@ export async function loadSessionUser(userId: string): Promise<SessionUser | nul
 
 /** The signed-in person from the session cookie, or null. */
 export async function getSessionUser(): Promise<SessionUser | null> {
+  // Per-request by nature: never prerendered at build time (where no secrets exist).
+  await connection();
   const session = await getServerSession(buildAuthOptions());
   return session?.user?.id ? loadSessionUser(session.user.id) : null;
 }

@@ -21,7 +21,7 @@ const SUFFIX = /^[a-z0-9-]{1,20}$/;
 
 /** The store's root folder, read on each call so tests can point it elsewhere. */
 export function uploadRoot(): string {
-  return path.resolve(process.env.UPLOAD_DIR || "./data/uploads");
+  return path.resolve(/*turbopackIgnore: true*/ process.env.UPLOAD_DIR || "./data/uploads");
 }
 
 export function sha256Hex(bytes: Uint8Array): string {
@@ -33,7 +33,7 @@ export function storedPath(sha256: string, suffix?: string): string {
   if (!SHA256_HEX.test(sha256)) throw new Error(`not a sha256 hex digest: ${sha256}`);
   if (suffix !== undefined && !SUFFIX.test(suffix)) throw new Error(`bad derived-file suffix: ${suffix}`);
   const name = suffix ? `${sha256}.${suffix}` : sha256;
-  return path.join(uploadRoot(), sha256.slice(0, 2), sha256.slice(2, 4), name);
+  return path.join(/*turbopackIgnore: true*/ uploadRoot(), sha256.slice(0, 2), sha256.slice(2, 4), name);
 }
 
 /** Stores bytes under their sha256; an existing identical file is kept and reported as not created. */
