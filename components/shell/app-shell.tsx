@@ -22,7 +22,7 @@ import {
 } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
-import { signOut } from "next-auth/react";
+import { signOutAndLeave } from "./sign-out";
 import { useTheme } from "next-themes";
 import { useState, useSyncExternalStore } from "react";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -177,7 +177,7 @@ function UserBlock({ user }: { user: SessionUser }) {
       </div>
       <button
         type="button"
-        onClick={() => signOut({ callbackUrl: "/sign-in" })}
+        onClick={() => void signOutAndLeave()}
         className="rounded-md p-2 text-muted hover:bg-raised hover:text-fg"
         aria-label="Sign out"
         title="Sign out"

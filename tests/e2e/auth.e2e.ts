@@ -27,6 +27,15 @@ export default async function authE2E(ctx: E2EContext): Promise<void> {
       await context.clearCookies();
     }
 
+    // Signing out ends the session: the next protected page sends us back to sign-in.
+    const leaving = await context.newPage();
+    await ctx.signIn(leaving, "cleo@chirpdesk.test", "demo-coordinator");
+    await leaving.locator('nav[aria-label="Main"] button[aria-label="Sign out"]').first().click();
+    await leaving.waitForURL((url) => url.pathname === "/sign-in", { timeout: 15_000 });
+    await leaving.goto(`${ctx.baseUrl}/rota`);
+    check(new URL(leaving.url()).pathname === "/sign-in", `after signing out, /rota went to ${leaving.url()}`);
+    await leaving.close();
+
     const page = await context.newPage();
     await page.goto(`${ctx.baseUrl}/sign-in`);
     await page.fill("#email", "ada@chirpdesk.test");

@@ -1,0 +1,16 @@
+/**
+ * Signs out through next-auth's own endpoints (CSRF token, then the sign-out POST) without loading its browser
+ * client on every page; the sign-in page still uses the full client.
+ */
+export async function signOutAndLeave(): Promise<void> {
+  try {
+    const { csrfToken } = (await (await fetch("/api/auth/csrf")).json()) as { csrfToken: string };
+    await fetch("/api/auth/signout", {
+      method: "POST",
+      headers: { "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ csrfToken, callbackUrl: "/sign-in", json: "true" }),
+    });
+  } finally {
+    window.location.assign("/sign-in");
+  }
+}
