@@ -59,13 +59,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
     if (result.outcome === "created") created.push({ id: result.answer.id, receivedAt: receivedAt.getTime() });
   }
 
-  // The pages for these were "sent" at the time; their escalation timers were answered.
-  await db.run(sql`UPDATE notifications SET status = 'sent', attempts = 1,
-    sent_at = (SELECT c.received_at FROM candidates c WHERE c.id = notifications.candidate_id) + 5000 + (abs(random()) % 40000)
-    WHERE status = 'pending' AND candidate_id IS NOT NULL`);
-  await db.update(notifications).set({ status: "cancelled" }).where(eq(notifications.status, "pending"));
-  await db.run(sql`UPDATE notifications SET read_at = sent_at WHERE channel = 'in-app' AND read_at IS NULL`);
-  await db.update(escalations).set({ status: "cancelled" }).where(eq(escalations.status, "pending"));
+  await markPastPagesDelivered(db);
 
   // The newest two stay new for the board; the rest were handled by whoever was on shift.
   for (const [index, item] of created.slice(0, -2).entries()) {
@@ -87,6 +81,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
     }
     await transitionCandidate({ actor: shifter, candidateId: item.id, to: "pursue", via: "board", now: new Date(at) });
     const chosen = siteRows.slice(0, 2 + (index % 2));
+    setNotifyClock(() => at);
     const tasks = await createTasks(
       shifter,
       item.id,
@@ -99,7 +94,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
         notes: "",
       })),
       new Date(at),
-    );
+    ).finally(() => setNotifyClock(null));
     for (const [taskIndex, task] of tasks.entries()) {
       if (item.receivedAt > now.getTime() - 12 * 60 * MINUTE && taskIndex > 0) continue; // recent ones still open
       const observer = observers[(index + taskIndex) % observers.length] as SessionUser;
@@ -112,8 +107,19 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
       await reportTask(observer, task.id, taskIndex === 0 ? "Tiles covered; no new transient brighter than 20.5 mag in the 90 % region." : "Three catalogued galaxies imaged; nothing new.", new Date(taskAt));
     }
   }
+  await markPastPagesDelivered(db);
   const ids = created.map((c) => c.id);
   if (ids.length === 0) return 0;
   const [count] = await db.select({ n: sql<number>`count(*)` }).from(candidates).where(and(inArray(candidates.id, ids)));
   return count?.n ?? 0;
+}
+
+/** Pages queued for past events were "sent" at the time, shortly after queueing; their escalation timers answered. */
+async function markPastPagesDelivered(db: Database): Promise<void> {
+  await db.run(sql`UPDATE notifications SET status = 'sent', attempts = 1,
+    sent_at = next_attempt_at + 5000 + (abs(random()) % 40000)
+    WHERE status = 'pending' AND candidate_id IS NOT NULL`);
+  await db.update(notifications).set({ status: "cancelled" }).where(eq(notifications.status, "pending"));
+  await db.run(sql`UPDATE notifications SET read_at = sent_at WHERE channel = 'in-app' AND read_at IS NULL`);
+  await db.update(escalations).set({ status: "cancelled" }).where(eq(escalations.status, "pending"));
 }
