@@ -1,9 +1,12 @@
-import { and, eq, inArray, sql } from "drizzle-orm";
+import { readFile } from "node:fs/promises";
+import path from "node:path";
+import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "@/db";
 import { candidates, escalations, notifications, sites, users } from "@/db/schema";
 import { FeedGenerator } from "@/fakes/feed/generator";
 import type { SessionUser } from "@/lib/auth/roles";
 import { ingestCandidate } from "@/lib/data/ingest";
+import { uploadSkymap } from "@/lib/data/skymaps";
 import { claimTask, createTasks, moveTask, reportTask } from "@/lib/data/tasks";
 import { transitionCandidate } from "@/lib/data/triage";
 import { setNotifyClock } from "@/lib/notify/clock";
@@ -108,6 +111,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
     }
   }
   await markPastPagesDelivered(db);
+  await attachDemoSkymaps(db, created.map((c) => c.id));
   const ids = created.map((c) => c.id);
   if (ids.length === 0) return 0;
   const [count] = await db.select({ n: sql<number>`count(*)` }).from(candidates).where(and(inArray(candidates.id, ids)));
@@ -122,4 +126,22 @@ async function markPastPagesDelivered(db: Database): Promise<void> {
   await db.update(notifications).set({ status: "cancelled" }).where(eq(notifications.status, "pending"));
   await db.run(sql`UPDATE notifications SET read_at = sent_at WHERE channel = 'in-app' AND read_at IS NULL`);
   await db.update(escalations).set({ status: "cancelled" }).where(eq(escalations.status, "pending"));
+}
+
+/**
+ * A fictional two-lobed localisation (made by tests/fixtures/scripts/skymap_make_fixtures.py), attached through the
+ * real upload path to the newest pursued candidates and the newest new one, so the map and visibility views show.
+ */
+async function attachDemoSkymaps(db: Database, candidateIds: string[]): Promise<void> {
+  if (candidateIds.length === 0) return;
+  const bytes = new Uint8Array(await readFile(path.join(process.cwd(), "lib/seed/demo-localisation.multiorder.fits.gz")));
+  const rows = await db
+    .select({ id: candidates.id, triageState: candidates.triageState })
+    .from(candidates)
+    .where(inArray(candidates.id, candidateIds))
+    .orderBy(desc(candidates.receivedAt));
+  const picked = [...rows.filter((r) => r.triageState === "pursue").slice(0, 2), ...rows.filter((r) => r.triageState === "new").slice(0, 1)];
+  for (const row of picked) {
+    await uploadSkymap({ target: { candidateId: row.id }, fileName: "demo-localisation.multiorder.fits.gz", bytes, actorId: null, via: "feed" });
+  }
 }
