@@ -3,15 +3,15 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getSortedRowModel,
   useReactTable,
   type SortingState,
 } from "@tanstack/react-table";
-import { ArrowUpDown, UserPlus } from "lucide-react";
+import { UserPlus } from "lucide-react";
 import { useMemo, useState } from "react";
 import { toast } from "sonner";
+import { DataTable } from "@/components/ui/data-table";
 import { Avatar } from "@/components/ui/avatar";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
@@ -73,7 +73,7 @@ export function UsersAdmin({ actor }: { actor: SessionUser }) {
           return (
             <Select
               aria-label={`Role of ${target.name}`}
-              className="h-8 w-40 py-1"
+              className="h-8 w-40 py-0"
               value={c.getValue()}
               disabled={locked || update.isPending}
               onChange={(e) => update.mutate({ id: target.id, patch: { role: e.target.value as Role } })}
@@ -130,37 +130,7 @@ export function UsersAdmin({ actor }: { actor: SessionUser }) {
         </Button>
       </div>
       <div className="overflow-x-auto rounded-lg border border-line bg-surface">
-        <table className="w-full text-sm">
-          <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => (
-                  <th key={h.id} className="px-3 py-2 font-medium" aria-sort={h.column.getIsSorted() === "asc" ? "ascending" : h.column.getIsSorted() === "desc" ? "descending" : undefined}>
-                    {h.column.getCanSort() ? (
-                      <button type="button" className="inline-flex items-center gap-1 hover:text-fg" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <ArrowUpDown className="h-3 w-3" aria-hidden />
-                      </button>
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-b border-line last:border-0">
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2 align-middle">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DataTable table={table} caption="People and their roles" />
         {query.isLoading ? <p className="p-4 text-sm text-muted">Loading people…</p> : null}
         {query.isError ? <p className="p-4 text-sm text-alarm">Could not load people: {errorText(query.error)}</p> : null}
       </div>

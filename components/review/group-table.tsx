@@ -2,14 +2,13 @@
 
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getSortedRowModel,
   useReactTable,
   type SortingState,
 } from "@tanstack/react-table";
-import { ArrowDown, ArrowUp, ArrowUpDown } from "lucide-react";
 import { useMemo, useState } from "react";
+import { DataTable } from "@/components/ui/data-table";
 import { formatDurationMs } from "@/lib/review/format";
 import type { StepFigures } from "@/lib/review/summary";
 
@@ -76,38 +75,7 @@ export function GroupTable({
   });
   return (
     <div className="max-h-[28rem] overflow-auto rounded-lg border border-line bg-surface">
-      <table className="w-full text-sm">
-        <caption className="sr-only">{caption}</caption>
-        <thead className="sticky top-0 border-b border-line bg-surface text-left text-xs uppercase tracking-wide text-muted">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const dir = h.column.getIsSorted();
-                const Icon = dir === "asc" ? ArrowUp : dir === "desc" ? ArrowDown : ArrowUpDown;
-                return (
-                  <th key={h.id} className="px-3 py-2 font-medium" aria-sort={dir === "asc" ? "ascending" : dir === "desc" ? "descending" : undefined}>
-                    <button type="button" className="inline-flex items-center gap-1 hover:text-fg" onClick={h.column.getToggleSortingHandler()}>
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <Icon className="h-3 w-3" aria-hidden />
-                    </button>
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-line last:border-0 hover:bg-raised">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="whitespace-nowrap px-3 py-2 align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DataTable table={table} caption={caption} stickyHeader rowClassName="hover:bg-raised" cellClassName="whitespace-nowrap align-top" />
       {rows.length === 0 ? <p className="p-4 text-sm text-muted">Nothing in this range.</p> : null}
     </div>
   );

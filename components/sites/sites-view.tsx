@@ -1,10 +1,11 @@
 "use client";
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
 import { MapPin, Pencil, Plus, Trash2 } from "lucide-react";
 import { useMemo, useState } from "react";
 import { toast } from "sonner";
+import { DataTable } from "@/components/ui/data-table";
 import { skymapKeys } from "@/components/skymap/query-keys";
 import { Avatar } from "@/components/ui/avatar";
 import { Button } from "@/components/ui/button";
@@ -120,30 +121,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
           </EmptyState>
         ) : (
           <div className="overflow-x-auto rounded-lg border border-line bg-surface">
-            <table className="w-full text-sm" data-testid="sites-table">
-              <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
-                {table.getHeaderGroups().map((hg) => (
-                  <tr key={hg.id}>
-                    {hg.headers.map((h) => (
-                      <th key={h.id} className="px-3 py-2 font-medium">
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                      </th>
-                    ))}
-                  </tr>
-                ))}
-              </thead>
-              <tbody>
-                {table.getRowModel().rows.map((row) => (
-                  <tr key={row.id} className="border-b border-line last:border-0">
-                    {row.getVisibleCells().map((cell) => (
-                      <td key={cell.id} className="px-3 py-2 align-middle">
-                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                      </td>
-                    ))}
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+            <DataTable table={table} caption="Observing sites" testId="sites-table" />
             {query.isLoading ? <p className="p-4 text-sm text-muted">Loading sites…</p> : null}
             {query.isError ? <p className="p-4 text-sm text-alarm">Could not load sites: {errorText(query.error)}</p> : null}
           </div>

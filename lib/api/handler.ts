@@ -3,6 +3,7 @@ import { NextResponse, type NextRequest } from "next/server";
 import type { z, ZodType } from "zod";
 import { resolveRequestUser } from "@/lib/auth/session";
 import { hasRole, type Role, type SessionUser } from "@/lib/auth/roles";
+import { readBodyBytes } from "./body";
 import { ApiError, invalid } from "./errors";
 
 /** The request body limit unless a route says otherwise. */
@@ -69,23 +70,7 @@ function parseQuery(schema: ZodType, req: NextRequest): unknown {
 
 /** Reads at most `limit` bytes of text; a larger body is a 413 without reading the rest. */
 export async function readBodyText(req: Request, limit = DEFAULT_MAX_BODY_BYTES): Promise<string> {
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > limit) throw new ApiError(413, `body is ${declared} bytes; the limit is ${limit}`);
-  if (!req.body) return "";
-  const reader = req.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel();
-      throw new ApiError(413, `body is over the limit of ${limit} bytes`);
-    }
-    chunks.push(value);
-  }
-  return Buffer.concat(chunks).toString("utf8");
+  return Buffer.from(await readBodyBytes(req, limit)).toString("utf8");
 }
 
 export function parseJsonText(text: string): unknown {
