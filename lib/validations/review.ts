@@ -7,38 +7,30 @@ import { stepIds } from "@/lib/review/steps";
 const dayOrInstant = z.union([z.iso.date(), z.iso.datetime({ offset: true })]);
 const optionalId = z.string().trim().min(1).max(100).optional();
 
-/** Filters shared by the review page, its JSON and its CSV. Empty strings from a GET form count as absent. */
-export const reviewQuerySchema = z.preprocess(
-  (raw) =>
-    raw && typeof raw === "object"
-      ? Object.fromEntries(Object.entries(raw as Record<string, unknown>).filter(([, v]) => v !== "" && v !== undefined))
-      : raw,
-  z.object({
-    from: dayOrInstant.optional(),
-    to: dayOrInstant.optional(),
-    class: z.enum(sourceClasses).optional(),
-    stage: z.enum(stages).optional(),
-    shift: optionalId,
-    person: optionalId,
-    site: optionalId,
-  }),
-);
+/** Empty strings from a GET form count as absent. */
+const dropEmpty = (raw: unknown) =>
+  raw && typeof raw === "object"
+    ? Object.fromEntries(Object.entries(raw as Record<string, unknown>).filter(([, v]) => v !== "" && v !== undefined))
+    : raw;
+
+const reviewFilters = z.object({
+  from: dayOrInstant.optional(),
+  to: dayOrInstant.optional(),
+  class: z.enum(sourceClasses).optional(),
+  stage: z.enum(stages).optional(),
+  shift: optionalId,
+  person: optionalId,
+  site: optionalId,
+});
+
+/** Filters shared by the review page, its JSON and its CSV. */
+export const reviewQuerySchema = z.preprocess(dropEmpty, reviewFilters);
 export type ReviewQuery = z.infer<typeof reviewQuerySchema>;
 
 /** The click-through list: one step, optionally one histogram bin or only the late ones. */
 export const reviewListQuerySchema = z.preprocess(
-  (raw) =>
-    raw && typeof raw === "object"
-      ? Object.fromEntries(Object.entries(raw as Record<string, unknown>).filter(([, v]) => v !== "" && v !== undefined))
-      : raw,
-  z.object({
-    from: dayOrInstant.optional(),
-    to: dayOrInstant.optional(),
-    class: z.enum(sourceClasses).optional(),
-    stage: z.enum(stages).optional(),
-    shift: optionalId,
-    person: optionalId,
-    site: optionalId,
+  dropEmpty,
+  reviewFilters.extend({
     step: z.enum(stepIds),
     bin: z.enum(histogramBinKeys).optional(),
     late: z.enum(["1", "true"]).optional(),
