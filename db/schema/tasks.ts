@@ -2,16 +2,10 @@ import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
 import { candidates } from "./candidates";
 import { createdAt, idColumn, instant } from "./columns";
 import { sites } from "./sites";
+import { taskKinds, taskStates } from "./task-values";
 import { users } from "./users";
 
-export const taskKinds = ["wide-field-tiling", "galaxy-targeted", "spectroscopy", "other"] as const;
-export type TaskKind = (typeof taskKinds)[number];
-
-export const taskStates = ["open", "claimed", "observing", "reported", "cancelled"] as const;
-export type TaskState = (typeof taskStates)[number];
-
-/** 1 is the most urgent. */
-export const taskPriorities = [1, 2, 3] as const;
+export * from "./task-values";
 
 export const followUpTasks = sqliteTable(
   "follow_up_tasks",

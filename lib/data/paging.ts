@@ -79,17 +79,15 @@ export async function countUnread(userId: string): Promise<number> {
 /** Marks the person's own notifications read (all copies of each message); others' ids are ignored. */
 export async function markRead(userId: string, target: { ids: string[] } | { all: true }, now = new Date()): Promise<number> {
   const db = await getDb();
-  await (async () => {
-    const mine = and(eq(notifications.userId, userId), isNull(notifications.readAt));
-    if ("all" in target) {
-      await db.update(notifications).set({ readAt: now }).where(mine);
-      return;
-    }
+  const mine = and(eq(notifications.userId, userId), isNull(notifications.readAt));
+  if ("all" in target) {
+    await db.update(notifications).set({ readAt: now }).where(mine);
+  } else {
     const picked = await db.select({ eventId: notifications.eventId }).from(notifications).where(and(mine, inArray(notifications.id, target.ids)));
     const eventIds = picked.flatMap((p) => (p.eventId === null ? [] : [p.eventId]));
     await db.update(notifications).set({ readAt: now }).where(and(mine, inArray(notifications.id, target.ids)));
     if (eventIds.length > 0) await db.update(notifications).set({ readAt: now }).where(and(mine, inArray(notifications.eventId, eventIds)));
-  })();
+  }
   return countUnread(userId);
 }
 

@@ -51,32 +51,30 @@ export async function recordOutcome(row: Notification, workerId: string, outcome
   const db = await getDb();
   const mine = and(eq(notifications.id, row.id), eq(notifications.lockedBy, workerId), eq(notifications.status, "sending"));
   const release = { lockedBy: null, lockedUntil: null, ...(outcome.payload ? { payload: outcome.payload } : {}) };
-  return (async () => {
-    if (outcome.status === "failed") {
-      return db.transaction(async (tx) => {
-        const [done] = await tx
-          .update(notifications)
-          .set({ ...release, status: "failed", lastError: outcome.error.slice(0, 1000) })
-          .where(mine)
-          .returning({ id: notifications.id });
-        if (!done) return false;
-        await appendEvent(tx, {
-          at: now,
-          kind: eventKinds.notificationFailed,
-          candidateId: row.candidateId,
-          taskId: row.taskId,
-          data: { notificationId: row.id, channel: row.channel, userId: row.userId, attempts: row.attempts, error: outcome.error.slice(0, 200) },
-        });
-        return true;
+  if (outcome.status === "failed") {
+    return db.transaction(async (tx) => {
+      const [done] = await tx
+        .update(notifications)
+        .set({ ...release, status: "failed", lastError: outcome.error.slice(0, 1000) })
+        .where(mine)
+        .returning({ id: notifications.id });
+      if (!done) return false;
+      await appendEvent(tx, {
+        at: now,
+        kind: eventKinds.notificationFailed,
+        candidateId: row.candidateId,
+        taskId: row.taskId,
+        data: { notificationId: row.id, channel: row.channel, userId: row.userId, attempts: row.attempts, error: outcome.error.slice(0, 200) },
       });
-    }
-    const set =
-      outcome.status === "sent"
-        ? { ...release, status: "sent" as const, sentAt: now, lastError: null }
-        : outcome.status === "skipped"
-          ? { ...release, status: "skipped" as const, lastError: outcome.reason.slice(0, 1000) }
-          : { ...release, status: "pending" as const, nextAttemptAt: outcome.nextAttemptAt, lastError: outcome.error.slice(0, 1000) };
-    const [done] = await db.update(notifications).set(set).where(mine).returning({ id: notifications.id });
-    return Boolean(done);
-  })();
+      return true;
+    });
+  }
+  const set =
+    outcome.status === "sent"
+      ? { ...release, status: "sent" as const, sentAt: now, lastError: null }
+      : outcome.status === "skipped"
+        ? { ...release, status: "skipped" as const, lastError: outcome.reason.slice(0, 1000) }
+        : { ...release, status: "pending" as const, nextAttemptAt: outcome.nextAttemptAt, lastError: outcome.error.slice(0, 1000) };
+  const [done] = await db.update(notifications).set(set).where(mine).returning({ id: notifications.id });
+  return Boolean(done);
 }

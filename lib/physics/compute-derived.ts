@@ -51,6 +51,13 @@ function frequencyRange(f: readonly number[]): { min: number; max: number } {
   return { min, max };
 }
 
+/** A χ²/dof well above 1 means the quoted per-sample uncertainties were too small; say so beside the numbers. */
+function fitWarnings(reducedChiSquare: number | null): string[] {
+  return reducedChiSquare !== null && reducedChiSquare > 3
+    ? [`residuals exceed the quoted uncertainties (χ²/dof = ${reducedChiSquare.toFixed(2)}); errors scaled up`]
+    : [];
+}
+
 function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): PhysicsResult<TrackFitOutcome> {
   if (track === undefined || track === null || typeof track !== "object") return fail("missing-input", "no frequency track");
   if ("t" in track) {
@@ -59,10 +66,7 @@ function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): Phy
     if (!result.ok) return result;
     const fit = result.value;
     const range = frequencyRange(track.f);
-    const warnings: string[] = [];
-    if (fit.reducedChiSquare !== null && fit.reducedChiSquare > 3) {
-      warnings.push(`residuals exceed the quoted uncertainties (χ²/dof = ${fit.reducedChiSquare.toFixed(2)}); errors scaled up`);
-    }
+    const warnings = fitWarnings(fit.reducedChiSquare);
     return succeed({
       fit: {
         trackKind: "time",
@@ -86,10 +90,7 @@ function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): Phy
   if (!result.ok) return result;
   const fit = result.value;
   const range = frequencyRange(track.f);
-  const warnings: string[] = [];
-  if (fit.reducedChiSquare !== null && fit.reducedChiSquare > 3) {
-    warnings.push(`residuals exceed the quoted uncertainties (χ²/dof = ${fit.reducedChiSquare.toFixed(2)}); errors scaled up`);
-  }
+  const warnings = fitWarnings(fit.reducedChiSquare);
   return succeed({
     fit: {
       trackKind: "derivative",

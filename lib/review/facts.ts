@@ -1,4 +1,4 @@
-import type { CandidateFacts, DecisionState } from "./timeline";
+import type { CandidateColumns, CandidateFacts, DecisionState } from "./timeline";
 
 /** A first occurrence in the audit log: when, and who. */
 export interface Stamp {
@@ -7,17 +7,7 @@ export interface Stamp {
 }
 
 /** One row of the review's query (times in Unix ms): the candidate's columns and its first milestones in the log. */
-export interface CandidateMilestones {
-  id: string;
-  source: string;
-  externalId: string;
-  stage: string;
-  dominantClass: string | null;
-  triageState: string;
-  ownerId: string | null;
-  eventTimeMs: number;
-  receivedAtMs: number;
-  withdrawnAtMs: number | null;
+export interface CandidateMilestones extends CandidateColumns {
   acknowledgedAtMs: number | null;
   acknowledgedById: string | null;
   decidedAtMs: number | null;

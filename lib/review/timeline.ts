@@ -6,7 +6,8 @@ export type DecisionState = "pursue" | "dismissed" | "expert";
  * What the audit log, the candidates table and the outbox say about one candidate, reduced to first times
  * (Unix ms). Built by lib/data/review.ts from a few range queries; everything here is pure.
  */
-export interface CandidateFacts {
+/** A candidate's own columns, as both the review query row and the timeline facts carry them (times in Unix ms). */
+export interface CandidateColumns {
   id: string;
   source: string;
   externalId: string;
@@ -17,6 +18,9 @@ export interface CandidateFacts {
   eventTimeMs: number;
   receivedAtMs: number;
   withdrawnAtMs: number | null;
+}
+
+export interface CandidateFacts extends CandidateColumns {
   firstPageAtMs: number | null;
   /** the first move out of "new" (an acknowledgement, or a decision taken straight from new) */
   acknowledgedAtMs: number | null;
