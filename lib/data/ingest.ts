@@ -1,14 +1,26 @@
+import { randomUUID } from "node:crypto";
+import type { Transaction } from "@libsql/client";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db";
 import { candidateRevisions, candidates, derivedQuantities, followUpTasks, type Candidate } from "@/db/schema";
-import { headlineFromDerived, diffHeadlines, type DerivedHeadline, type RevisionHeadline } from "@/lib/feed/headline";
+import type { DerivedForFeed } from "@/lib/feed/derive-messages";
+import { derivePool } from "@/lib/feed/derive-pool";
+import { createGroupCommitter, type GroupWrite } from "@/lib/feed/group-commit";
+import { diffHeadlines, type DerivedHeadline, type RevisionHeadline } from "@/lib/feed/headline";
 import { derivationSeed, revisionHeadline, toPhysicsInput } from "@/lib/feed/physics-input";
 import { eventKinds } from "@/lib/events/kinds";
-import { createGroupCommitter } from "@/lib/feed/group-commit";
 import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
-import { computeDerived } from "@/lib/physics";
 import type { FeedCandidate } from "@/lib/validations/feed";
 import { appendEvent, type Tx } from "./events";
+import {
+  insertCandidateStatement,
+  insertCreatedEventStatement,
+  insertDerivedStatement,
+  insertRevisionStatement,
+  lookupStatement,
+  cardData,
+  type NewCandidateRow,
+} from "./ingest-sql";
 import { getSetting } from "./settings";
 
 /** created: a new candidate; revised: a new current revision; stale: kept in history only; duplicate: seen before. */
@@ -23,101 +35,110 @@ export interface IngestAnswer {
 export interface IngestResult {
   status: 200 | 201;
   outcome: IngestOutcome;
-  answer: IngestAnswer;
+  id: string;
+  revision: number;
+  /** the derived quantities as stored: JSON text, so the route answers without serialising them again */
+  derivedJson: string;
 }
 
 const openTaskStates = ["open", "claimed", "observing"] as const;
 const withdrawalReason = "the feed withdrew the candidate";
 
+/** The route's answer `{ id, revision, derived }` as an object (tests, seeding and scripts). */
+export function ingestAnswer(result: IngestResult): IngestAnswer {
+  return { id: result.id, revision: result.revision, derived: JSON.parse(result.derivedJson) as Record<string, unknown> };
+}
+
 /**
  * Stores one validated feed revision: candidate, revision, derived quantities, events and paging hooks in one
  * write transaction (its own savepoint inside a group commit). Idempotent on (source, externalId, revision): a
- * repeat answers the stored result, writing nothing. The physics runs first, so the write lock is held only for
- * the writes.
+ * repeat answers the stored result, writing nothing. The physics runs first, on a physics thread when there is
+ * one (lib/feed/derive-pool.ts), so the write lock is held only for the writes.
  */
 export async function ingestCandidate(payload: FeedCandidate, receivedAt: Date): Promise<IngestResult> {
   const db = await getDb();
-  const stored = await findStoredAnswer(db, payload);
-  if (stored) return { status: 200, outcome: "duplicate", answer: stored };
+  const stored = await readStoredAnswer(db.$client, payload);
+  if (stored) return stored;
   const settings = await getSetting("physics");
-  const computed = computeDerived(toPhysicsInput(payload, receivedAt), settings, derivationSeed(payload));
-  const derived = computed as unknown as Record<string, unknown>;
+  const derived = await derivePool().run(toPhysicsInput(payload, receivedAt), settings, derivationSeed(payload));
   for (let attempt = 1; ; attempt++) {
     try {
       return await writeInGroup({ payload, derived, receivedAt });
     } catch (error) {
       if (!isUniqueViolation(error) || attempt >= 3) throw error;
       // Another process stored this candidate or revision between our read and our write: read again.
-      const again = await findStoredAnswer(db, payload);
-      if (again) return { status: 200, outcome: "duplicate", answer: again };
+      const again = await readStoredAnswer(db.$client, payload);
+      if (again) return again;
     }
   }
 }
 
 interface PendingRevision {
   payload: FeedCandidate;
-  derived: Record<string, unknown>;
+  derived: DerivedForFeed;
   receivedAt: Date;
 }
 
 // One writer per module instance; concurrent posts share a commit (see lib/feed/group-commit.ts).
-const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>((tx, pending) =>
-  writeRevision(tx, pending.payload, pending.derived, pending.receivedAt),
-);
+const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>(async (tx, pending) => {
+  // Inside the write transaction nobody else can write, so this read decides for good.
+  const found = (await tx.sql.execute(lookupStatement(pending.payload))).rows[0];
+  if (!found) return createCandidate(tx, pending);
+  const stored = storedAnswerFrom(found, pending.payload);
+  if (stored) return stored;
+  const derived = JSON.parse(pending.derived.json) as Record<string, unknown>;
+  return writeRevision(tx.orm, pending.payload, derived, pending.derived, pending.receivedAt);
+});
 
-/** The stored answer for (source, externalId, revision), or null. */
-export async function findStoredAnswer(q: Tx, payload: Pick<FeedCandidate, "source" | "externalId" | "revision">) {
-  const [row] = await q
-    .select({ id: candidates.id, derived: derivedQuantities.derived })
-    .from(candidates)
-    .innerJoin(
-      candidateRevisions,
-      and(eq(candidateRevisions.candidateId, candidates.id), eq(candidateRevisions.revision, payload.revision)),
-    )
-    .leftJoin(derivedQuantities, eq(derivedQuantities.revisionId, candidateRevisions.id))
-    .where(and(eq(candidates.source, payload.source), eq(candidates.externalId, payload.externalId)))
-    .limit(1);
-  return row ? { id: row.id, revision: payload.revision, derived: row.derived ?? {} } : null;
+type LookupRow = Record<string, unknown>;
+
+function storedAnswerFrom(row: LookupRow, payload: Pick<FeedCandidate, "revision">): IngestResult | null {
+  if (row.revision_id === null || row.revision_id === undefined) return null;
+  return {
+    status: 200,
+    outcome: "duplicate",
+    id: String(row.id),
+    revision: payload.revision,
+    derivedJson: typeof row.derived === "string" ? row.derived : "{}",
+  };
 }
 
+/** The stored answer for (source, externalId, revision) read outside any transaction, or null. */
+async function readStoredAnswer(
+  client: Pick<Transaction, "execute">,
+  payload: Pick<FeedCandidate, "source" | "externalId" | "revision">,
+): Promise<IngestResult | null> {
+  const row = (await client.execute(lookupStatement(payload))).rows[0];
+  return row ? storedAnswerFrom(row, payload) : null;
+}
+
+/** A revision of a candidate already stored: a new current revision, or (lower than the current one) history only. */
 async function writeRevision(
   tx: Tx,
   payload: FeedCandidate,
   derived: Record<string, unknown>,
+  forFeed: DerivedForFeed,
   at: Date,
 ): Promise<IngestResult> {
-  // Inside the write transaction nobody else can write, so this read decides for good.
-  const stored = await findStoredAnswer(tx, payload);
-  if (stored) return { status: 200, outcome: "duplicate", answer: stored };
   const [existing] = await tx
     .select()
     .from(candidates)
     .where(and(eq(candidates.source, payload.source), eq(candidates.externalId, payload.externalId)))
     .limit(1);
-  const headline = headlineFromDerived(derived);
-  let outcome: IngestOutcome;
-  let candidateId: string;
-  if (!existing) {
-    candidateId = await createCandidate(tx, payload, headline, at);
-    outcome = "created";
-  } else if (payload.revision > existing.currentRevision) {
-    candidateId = existing.id;
-    await reviseCandidate(tx, existing, payload, headline, at);
-    outcome = "revised";
-  } else {
-    candidateId = existing.id;
-    outcome = "stale";
-  }
-  await insertRevision(tx, candidateId, payload, derived, headline, at);
-  if (outcome === "stale" && existing) {
+  if (!existing) throw new Error("the candidate disappeared inside the write transaction");
+  const { headline } = forFeed;
+  const outcome: IngestOutcome = payload.revision > existing.currentRevision ? "revised" : "stale";
+  if (outcome === "revised") await reviseCandidate(tx, existing, payload, headline, at);
+  await insertRevision(tx, existing.id, payload, derived, headline, at);
+  if (outcome === "stale") {
     await appendEvent(tx, {
       at,
       kind: eventKinds.candidateRevisionStale,
-      candidateId,
+      candidateId: existing.id,
       data: { revision: payload.revision, current: existing.currentRevision, stage: payload.stage },
     });
   }
-  return { status: 201, outcome, answer: { id: candidateId, revision: payload.revision, derived } };
+  return { status: 201, outcome, id: existing.id, revision: payload.revision, derivedJson: forFeed.json };
 }
 
 async function insertRevision(
@@ -154,22 +175,6 @@ async function insertRevision(
   });
 }
 
-/** The small card the board needs, carried in the event so a live board draws it without another read. */
-function cardData(payload: FeedCandidate, headline: DerivedHeadline) {
-  return {
-    source: payload.source,
-    externalId: payload.externalId,
-    revision: payload.revision,
-    stage: payload.stage,
-    eventTime: new Date(payload.eventTime).toISOString(),
-    networkSnr: payload.networkSnr,
-    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
-    detectors: payload.detectors,
-    chirpMassDetectorFrame: headline.chirpMassDetectorFrame,
-    dominantClass: headline.dominantClass,
-  };
-}
-
 function headlineColumns(payload: FeedCandidate, headline: DerivedHeadline) {
   return {
     stage: payload.stage,
@@ -182,40 +187,48 @@ function headlineColumns(payload: FeedCandidate, headline: DerivedHeadline) {
   };
 }
 
-async function createCandidate(tx: Tx, payload: FeedCandidate, headline: DerivedHeadline, at: Date): Promise<string> {
-  const withdrawn = payload.stage === "withdrawn";
-  const [row] = await tx
-    .insert(candidates)
-    .values({
-      source: payload.source,
-      externalId: payload.externalId,
-      currentRevision: payload.revision,
-      triageState: "new",
-      receivedAt: at,
-      updatedAt: at,
-      withdrawnAt: withdrawn ? at : null,
-      ...headlineColumns(payload, headline),
-    })
-    .returning({ id: candidates.id });
-  if (!row) throw new Error("candidate insert returned nothing");
-  const event = await appendEvent(tx, {
-    at,
-    kind: eventKinds.candidateCreated,
-    candidateId: row.id,
-    toState: "new",
-    data: { ...cardData(payload, headline), triageState: "new", receivedAt: at.toISOString() },
-  });
-  await onCandidateIngested(tx, {
-    candidateId: row.id,
-    eventId: event.id,
+/**
+ * A new candidate: the hand-written statements of lib/data/ingest-sql.ts (the hot path of a burst), then the
+ * paging hook and, for a candidate withdrawn on its first post, the withdrawal, through Drizzle on the same
+ * transaction.
+ */
+async function createCandidate(tx: GroupWrite, pending: PendingRevision): Promise<IngestResult> {
+  const { payload, derived, receivedAt } = pending;
+  const row: NewCandidateRow = {
+    candidateId: randomUUID(),
+    revisionId: randomUUID(),
+    payload,
+    payloadJson: JSON.stringify(payload),
+    derivedJson: derived.json,
+    headline: derived.headline,
+    receivedAtMs: receivedAt.getTime(),
+  };
+  await tx.sql.execute(insertCandidateStatement(row));
+  const eventId = Number((await tx.sql.execute(insertCreatedEventStatement(row))).rows[0]?.id);
+  if (!Number.isSafeInteger(eventId)) throw new Error("event insert returned no id");
+  await onCandidateIngested(tx.orm, {
+    candidateId: row.candidateId,
+    eventId,
     revision: payload.revision,
     stage: payload.stage,
     falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
     isNewCandidate: true,
-    receivedAt: at,
+    receivedAt,
+    candidate: {
+      id: row.candidateId,
+      externalId: payload.externalId,
+      source: payload.source,
+      stage: payload.stage,
+      networkSnr: payload.networkSnr,
+      falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
+      dominantClass: derived.headline.dominantClass,
+      detectors: payload.detectors,
+    },
   });
-  if (withdrawn) await withdrawCandidate(tx, row.id, payload.revision, at);
-  return row.id;
+  if (payload.stage === "withdrawn") await withdrawCandidate(tx.orm, row.candidateId, payload.revision, receivedAt);
+  await tx.sql.execute(insertRevisionStatement(row));
+  await tx.sql.execute(insertDerivedStatement(row));
+  return { status: 201, outcome: "created", id: row.candidateId, revision: payload.revision, derivedJson: derived.json };
 }
 
 function headlineOfCandidate(row: Candidate): RevisionHeadline {

@@ -1,5 +1,7 @@
-import { getDb } from "@/db";
-import type { Tx } from "@/lib/data/events";
+import type { Client, InStatement, Transaction } from "@libsql/client";
+import { drizzle } from "drizzle-orm/libsql";
+import { getDb, type Database } from "@/db";
+import * as schema from "@/db/schema";
 
 interface Pending<I, R> {
   item: I;
@@ -7,35 +9,76 @@ interface Pending<I, R> {
   reject: (error: unknown) => void;
 }
 
+/** One write inside a group: the libSQL transaction for hand-written statements, and Drizzle over the same one. */
+export interface GroupWrite {
+  sql: Pick<Transaction, "execute">;
+  orm: Database;
+}
+
 /** Most writes folded into one transaction; bounds how long one commit holds the write lock. */
 const maxBatch = 32;
+
+/**
+ * A Drizzle database whose statements all run on whichever libSQL transaction the committer currently holds.
+ * Built once per committer: constructing Drizzle per batch would cost more than the statements it saves.
+ */
+function ormOver(current: () => Transaction): Database {
+  const forwarding = {
+    execute: (stmt: InStatement) => current().execute(stmt),
+    batch: (stmts: InStatement[]) => current().batch(stmts),
+    transaction: () => Promise.reject(new Error("a group-commit write cannot open its own transaction; it already runs in one")),
+  } as unknown as Client;
+  return drizzle(forwarding, { schema }) as Database;
+}
 
 /**
  * Group commit: writes that arrive while a transaction is being written share the next one, each inside its own
  * savepoint, so a burst costs one commit (one fsync) instead of one per write. A write that fails rolls back to
  * its savepoint and rejects alone; if the commit itself fails, every write in that batch rejects.
  */
-export function createGroupCommitter<I, R>(write: (tx: Tx, item: I) => Promise<R>) {
+export function createGroupCommitter<I, R>(write: (tx: GroupWrite, item: I) => Promise<R>) {
   const queue: Array<Pending<I, R>> = [];
   let running = false;
+  let active: Transaction | null = null;
+  const orm = ormOver(() => {
+    if (!active) throw new Error("no group-commit transaction is open");
+    return active;
+  });
+
+  async function writeBatch(batch: Array<Pending<I, R>>) {
+    const outcomes: Array<{ ok: true; value: R } | { ok: false; error: unknown }> = [];
+    const db = await getDb();
+    const tx = await db.$client.transaction("write");
+    active = tx;
+    try {
+      for (const entry of batch) {
+        await tx.execute("savepoint group_write");
+        try {
+          const value = await write({ sql: tx, orm }, entry.item);
+          await tx.execute("release savepoint group_write");
+          outcomes.push({ ok: true, value });
+        } catch (error) {
+          await tx.execute("rollback to savepoint group_write");
+          await tx.execute("release savepoint group_write");
+          outcomes.push({ ok: false, error });
+        }
+      }
+      await tx.commit();
+    } finally {
+      active = null;
+      tx.close();
+    }
+    return outcomes;
+  }
 
   async function drain(): Promise<void> {
     running = true;
     try {
       while (queue.length > 0) {
         const batch = queue.splice(0, maxBatch);
-        const outcomes: Array<{ ok: true; value: R } | { ok: false; error: unknown }> = [];
+        let outcomes: Awaited<ReturnType<typeof writeBatch>>;
         try {
-          const db = await getDb();
-          await db.transaction(async (tx) => {
-            for (const entry of batch) {
-              try {
-                outcomes.push({ ok: true, value: await tx.transaction((savepoint) => write(savepoint, entry.item)) });
-              } catch (error) {
-                outcomes.push({ ok: false, error });
-              }
-            }
-          });
+          outcomes = await writeBatch(batch);
         } catch (error) {
           for (const entry of batch) entry.reject(error);
           continue;

@@ -1,5 +1,4 @@
 import { randomUUID } from "node:crypto";
-import { NextResponse } from "next/server";
 import { ApiError, invalid, zodIssues, type FieldIssue } from "@/lib/api/errors";
 import { errorResponse, readBodyText } from "@/lib/api/handler";
 import { recordDeadLetter } from "@/lib/data/dead-letters";
@@ -8,6 +7,12 @@ import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
 import { feedSigningSecret, verifyFeedSignature } from "./signature";
 
 export const maxFeedBodyBytes = 5 * 1024 * 1024;
+
+/**
+ * A feed answer is never cached, and `no-transform` keeps the server from gzipping it: the answers are a few kB
+ * for a machine on the same network, where compressing each one costs the server more than it saves.
+ */
+const answerHeaders = { "content-type": "application/json", "cache-control": "no-store, no-transform" };
 
 export interface FeedRouteOptions {
   /** the receiver's clock, Unix ms (tests inject one) */
@@ -53,7 +58,9 @@ export function createFeedIngestHandler(options: FeedRouteOptions = {}) {
         throw await refuse(422, `invalid feed body: ${issue.path}: ${issue.message}`, [issue]);
       }
       const result = await ingestCandidate(parsed.data, receivedAt);
-      return NextResponse.json({ ...result.answer, outcome: result.outcome }, { status: result.status });
+      // The derived quantities are already JSON text (as stored); splice them in rather than parse and re-serialise.
+      const body = `{"id":${JSON.stringify(result.id)},"revision":${result.revision},"derived":${result.derivedJson},"outcome":"${result.outcome}"}`;
+      return new Response(body, { status: result.status, headers: answerHeaders });
     } catch (error) {
       if (isDatabaseBusy(error)) {
         return errorResponse(new ApiError(503, "the database is busy; retry shortly", { retryAfterSeconds: 1 }), requestId);

@@ -5,6 +5,7 @@ import { appendEvent } from "@/lib/data/events";
 import { eventKinds } from "@/lib/events/kinds";
 import { notifyNow } from "./clock";
 import { cancelCandidatePaging, queueNotifications } from "./outbox";
+import type { CandidateSummary } from "./content";
 import { pageNewCandidate, readCandidateSummary } from "./plan";
 import { readPreferencesMany } from "./preferences";
 import { taskListenersBySite } from "./recipients";
@@ -21,6 +22,8 @@ export interface CandidateIngested {
   falseAlarmRatePerYear: number;
   isNewCandidate: boolean;
   receivedAt: Date;
+  /** the candidate's headline as just written, when the caller has it (saves paging a read) */
+  candidate?: CandidateSummary;
 }
 
 /** A new candidate pages the on-call primary and arms escalation; a withdrawal stops whatever is still waiting. */

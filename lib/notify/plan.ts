@@ -17,6 +17,7 @@ export interface NewCandidateInfo {
   stage: string;
   falseAlarmRatePerYear: number;
   receivedAt: Date;
+  candidate?: CandidateSummary;
 }
 
 export async function readCandidateSummary(tx: Tx, candidateId: string): Promise<CandidateSummary | null> {
@@ -30,7 +31,7 @@ export async function readCandidateSummary(tx: Tx, candidateId: string): Promise
  * steps would reach in the app only.
  */
 export async function pageNewCandidate(tx: Tx, info: NewCandidateInfo, now: Date): Promise<void> {
-  const candidate = await readCandidateSummary(tx, info.candidateId);
+  const candidate = info.candidate ?? (await readCandidateSummary(tx, info.candidateId));
   if (!candidate) return;
   const policy = await getSetting("escalation", tx);
   const shift = await findShiftAt(tx, info.receivedAt);

@@ -7,6 +7,8 @@ import { createHubbleRate, hubbleDistanceMpc, planck18, type FlatLambdaCdmParame
 
 export const DISTANCE_TABLE_MAX_REDSHIFT = 100;
 const CELL_COUNT = 4096;
+const HINT_WIDTH_MPC = 10;
+const HINT_BUCKETS = 10_000;
 
 export interface DistanceTable {
   maxRedshift: number;
@@ -50,6 +52,14 @@ export function createDistanceTable(
     luminositySlope[k] = e * ((comoving[k] as number) + (comovingSlope[k] as number)) * hubbleMpc;
   }
   const maxLuminosityDistanceMpc = luminosity[CELL_COUNT] as number;
+  // Search hints: for each 10 Mpc bucket below 10⁵ Mpc, the last node at or below the bucket's start, so the
+  // inverse (called once per Monte Carlo sample) bisects a cell or two instead of all 4096. Same answer, fewer steps.
+  const hintCount = Math.min(HINT_BUCKETS, Math.ceil(maxLuminosityDistanceMpc / HINT_WIDTH_MPC));
+  const hints = new Int32Array(hintCount + 1);
+  for (let b = 0, k = 0; b <= hintCount; b++) {
+    while (k < CELL_COUNT && (luminosity[k + 1] as number) <= b * HINT_WIDTH_MPC) k++;
+    hints[b] = k;
+  }
 
   function luminosityDistanceMpc(z: number): number {
     if (!(z >= 0) || z > maxRedshift) return Number.NaN;
@@ -62,8 +72,9 @@ export function createDistanceTable(
 
   function redshift(distanceMpc: number): number {
     if (!(distanceMpc >= 0) || distanceMpc > maxLuminosityDistanceMpc) return Number.NaN;
-    let lo = 0;
-    let hi = CELL_COUNT;
+    const bucket = Math.floor(distanceMpc / HINT_WIDTH_MPC);
+    let lo = bucket < hintCount ? (hints[bucket] as number) : 0;
+    let hi = bucket < hintCount ? Math.min(CELL_COUNT, (hints[bucket + 1] as number) + 1) : CELL_COUNT;
     while (hi - lo > 1) {
       const mid = (lo + hi) >> 1;
       if ((luminosity[mid] as number) <= distanceMpc) lo = mid;

@@ -59,7 +59,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
     const receivedAt = new Date(Math.max(t, Date.parse(post.payload.eventTime)) + (4 + rand() * 20) * 1000);
     setNotifyClock(() => receivedAt.getTime()); // page as it would have been paged then
     const result = await ingestCandidate(post.payload, receivedAt).finally(() => setNotifyClock(null));
-    if (result.outcome === "created") created.push({ id: result.answer.id, receivedAt: receivedAt.getTime() });
+    if (result.outcome === "created") created.push({ id: result.id, receivedAt: receivedAt.getTime() });
   }
 
   await markPastPagesDelivered(db);

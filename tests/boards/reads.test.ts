@@ -32,7 +32,7 @@ beforeAll(async () => {
   for (const [i, plan] of plans.entries()) {
     const receivedAt = new Date(base + i * 60_000);
     const result = await ingestCandidate(candidatePayload({ ...plan, eventTime: receivedAt }), receivedAt);
-    ids[plan.externalId] = result.answer.id;
+    ids[plan.externalId] = result.id;
   }
   await transitionCandidate({ actor: shifter.user, candidateId: ids["TB-CHARLIE"] ?? "", to: "dismissed", reason: "noise", via: "api" });
 });

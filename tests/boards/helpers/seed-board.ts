@@ -37,10 +37,10 @@ export async function seedBoardCandidates(count: number, now: Date, actor: Sessi
       networkSnr: 8 + (i % 13),
     });
     const result = await ingestCandidate(payload, receivedAt);
-    ids.push(result.answer.id);
+    ids.push(result.id);
     const target = states[(i * 7) % states.length] ?? "new";
     if (actor && target !== "new" && !(target === "pursue" && stage === "withdrawn")) {
-      await transitionCandidate({ actor, candidateId: result.answer.id, to: target, reason: "seeded", via: "api", now: receivedAt });
+      await transitionCandidate({ actor, candidateId: result.id, to: target, reason: "seeded", via: "api", now: receivedAt });
       if (target === "pursue") {
         const site = sites[i % Math.max(1, sites.length)];
         const drafts = [0, 1].map((k) => ({
@@ -51,7 +51,7 @@ export async function seedBoardCandidates(count: number, now: Date, actor: Sessi
           priority: 1 + ((i + k) % 3),
           notes: k === 0 ? "Tile the 90 % region, brightest galaxies first" : "",
         }));
-        await createTasks(actor, result.answer.id, drafts, receivedAt);
+        await createTasks(actor, result.id, drafts, receivedAt);
       }
     }
   }
