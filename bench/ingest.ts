@@ -1,10 +1,11 @@
 /**
- * `npm run bench:ingest [-- --no-build] [--count 2000] [--concurrency 8] [--samples 1000]`
+ * `npm run bench:ingest [-- --no-build] [--count 2000] [--concurrency 8] [--samples 1000] [--profile DIR]`
  *
  * Builds a production server into .next-bench (unless --no-build), starts it on a free port against a fresh
  * migrated SQLite file, posts signed candidates with 1000-sample tracks at concurrency 8 and prints latency
  * percentiles and throughput; then writes the same rows straight through the libSQL client (same tables, same
  * transaction shape, derived quantities precomputed) and prints the overhead ratio. Figures only, no assertions.
+ * `--profile DIR` also writes CPU profiles of the server (one per thread) into DIR.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
@@ -26,6 +27,8 @@ const { values } = parseArgs({
     count: { type: "string", default: "2000" },
     concurrency: { type: "string", default: "8" },
     samples: { type: "string", default: "1000" },
+    // Writes V8 CPU profiles of the server's threads into this folder (node --cpu-prof), for finding hot spots.
+    profile: { type: "string" },
   },
 });
 const count = Number(values.count);
@@ -158,7 +161,8 @@ async function main(): Promise<void> {
     const posts = makePosts();
     const meanBytes = posts.reduce((sum, p) => sum + p.rawBody.length, 0) / posts.length;
 
-    server = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(port)], {
+    const profileFlags = values.profile ? ["--cpu-prof", `--cpu-prof-dir=${path.resolve(values.profile)}`] : [];
+    server = spawn(process.execPath, [...profileFlags, "node_modules/next/dist/bin/next", "start", "-p", String(port)], {
       env,
       detached: true,
       stdio: ["ignore", "ignore", "inherit"],
@@ -204,6 +208,8 @@ async function main(): Promise<void> {
     if (server?.pid) {
       try {
         process.kill(-server.pid, "SIGTERM");
+        // A profiled server writes its profiles on the way out.
+        if (values.profile) await new Promise((resolve) => server?.once("exit", resolve));
       } catch {
         // already gone
       }

@@ -55,15 +55,28 @@ export function ingestAnswer(result: IngestResult): IngestAnswer {
  * repeat answers the stored result, writing nothing. The physics runs first, on a physics thread when there is
  * one (lib/feed/derive-pool.ts), so the write lock is held only for the writes.
  */
-export async function ingestCandidate(payload: FeedCandidate, receivedAt: Date): Promise<IngestResult> {
+export async function ingestCandidate(
+  payload: FeedCandidate,
+  receivedAt: Date,
+  options: {
+    /** the payload as JSON text when the caller already has it, e.g. the raw body when validation changed nothing */
+    payloadJson?: string;
+  } = {},
+): Promise<IngestResult> {
   const db = await getDb();
   const stored = await readStoredAnswer(db.$client, payload);
   if (stored) return stored;
   const settings = await getSetting("physics");
-  const derived = await derivePool().run(toPhysicsInput(payload, receivedAt), settings, derivationSeed(payload));
+  derivationsRunning += 1;
+  let derived: DerivedForFeed;
+  try {
+    derived = await derivePool().run(toPhysicsInput(payload, receivedAt), settings, derivationSeed(payload));
+  } finally {
+    derivationsRunning -= 1;
+  }
   for (let attempt = 1; ; attempt++) {
     try {
-      return await writeInGroup({ payload, derived, receivedAt });
+      return await writeInGroup({ payload, payloadJson: options.payloadJson, derived, receivedAt });
     } catch (error) {
       if (!isUniqueViolation(error) || attempt >= 3) throw error;
       // Another process stored this candidate or revision between our read and our write: read again.
@@ -75,12 +88,24 @@ export async function ingestCandidate(payload: FeedCandidate, receivedAt: Date):
 
 interface PendingRevision {
   payload: FeedCandidate;
+  payloadJson: string | undefined;
   derived: DerivedForFeed;
   receivedAt: Date;
 }
 
+/** Posts whose physics is still running: their writes are on their way to the group commit. */
+let derivationsRunning = 0;
+
+/** How long a commit waits for posts still in their physics (bounded; see lib/feed/group-commit.ts). */
+const commitGatherMs = 3;
+
 // One writer per module instance; concurrent posts share a commit (see lib/feed/group-commit.ts).
-const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>(async (tx, pending) => {
+const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>(writeOne, {
+  expected: () => derivationsRunning,
+  gatherMs: commitGatherMs,
+});
+
+async function writeOne(tx: GroupWrite, pending: PendingRevision): Promise<IngestResult> {
   // Inside the write transaction nobody else can write, so this read decides for good.
   const found = (await tx.sql.execute(lookupStatement(pending.payload))).rows[0];
   if (!found) return createCandidate(tx, pending);
@@ -88,7 +113,7 @@ const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>(async (
   if (stored) return stored;
   const derived = JSON.parse(pending.derived.json) as Record<string, unknown>;
   return writeRevision(tx.orm, pending.payload, derived, pending.derived, pending.receivedAt);
-});
+}
 
 type LookupRow = Record<string, unknown>;
 
@@ -198,7 +223,7 @@ async function createCandidate(tx: GroupWrite, pending: PendingRevision): Promis
     candidateId: randomUUID(),
     revisionId: randomUUID(),
     payload,
-    payloadJson: JSON.stringify(payload),
+    payloadJson: pending.payloadJson ?? JSON.stringify(payload),
     derivedJson: derived.json,
     headline: derived.headline,
     receivedAtMs: receivedAt.getTime(),

@@ -18,6 +18,17 @@ export interface GroupWrite {
 /** Most writes folded into one transaction; bounds how long one commit holds the write lock. */
 const maxBatch = 32;
 
+export interface GroupCommitOptions {
+  /**
+   * How many writes are on their way (e.g. posts whose physics is still running). While any are, a batch waits up
+   * to `gatherMs` for them before committing: the commit delay of PostgreSQL's `commit_delay`/`commit_siblings`
+   * and MySQL's `binlog_group_commit_sync_delay`. Each commit is an fsync that blocks the event loop, so fewer,
+   * fuller commits leave the loop more time for requests.
+   */
+  expected?: () => number;
+  gatherMs?: number;
+}
+
 /**
  * A Drizzle database whose statements all run on whichever libSQL transaction the committer currently holds.
  * Built once per committer: constructing Drizzle per batch would cost more than the statements it saves.
@@ -36,9 +47,26 @@ function ormOver(current: () => Transaction): Database {
  * savepoint, so a burst costs one commit (one fsync) instead of one per write. A write that fails rolls back to
  * its savepoint and rejects alone; if the commit itself fails, every write in that batch rejects.
  */
-export function createGroupCommitter<I, R>(write: (tx: GroupWrite, item: I) => Promise<R>) {
+export function createGroupCommitter<I, R>(write: (tx: GroupWrite, item: I) => Promise<R>, options: GroupCommitOptions = {}) {
   const queue: Array<Pending<I, R>> = [];
   let running = false;
+  const expected = options.expected ?? (() => 0);
+  const gatherMs = options.gatherMs ?? 0;
+  let wake: (() => void) | null = null;
+
+  /** Waits up to gatherMs while writes are on their way and the batch is not full. */
+  async function gather(): Promise<void> {
+    if (gatherMs <= 0 || queue.length >= maxBatch || expected() === 0) return;
+    await new Promise<void>((resolve) => {
+      const timer = setTimeout(done, gatherMs);
+      function done() {
+        clearTimeout(timer);
+        wake = null;
+        resolve();
+      }
+      wake = done;
+    });
+  }
   let active: Transaction | null = null;
   const orm = ormOver(() => {
     if (!active) throw new Error("no group-commit transaction is open");
@@ -75,6 +103,7 @@ export function createGroupCommitter<I, R>(write: (tx: GroupWrite, item: I) => P
     running = true;
     try {
       while (queue.length > 0) {
+        await gather();
         const batch = queue.splice(0, maxBatch);
         let outcomes: Awaited<ReturnType<typeof writeBatch>>;
         try {
@@ -97,6 +126,7 @@ export function createGroupCommitter<I, R>(write: (tx: GroupWrite, item: I) => P
   return (item: I): Promise<R> =>
     new Promise<R>((resolve, reject) => {
       queue.push({ item, resolve, reject });
+      if (wake && (queue.length >= maxBatch || expected() === 0)) wake();
       if (!running) void drain();
     });
 }

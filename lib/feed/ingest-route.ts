@@ -57,7 +57,10 @@ export function createFeedIngestHandler(options: FeedRouteOptions = {}) {
         const issue = { path: "frequencyTrack.t", message: `has ${samples} samples; at most ${maxTrackSamples}` };
         throw await refuse(422, `invalid feed body: ${issue.path}: ${issue.message}`, [issue]);
       }
-      const result = await ingestCandidate(parsed.data, receivedAt);
+      // Validation only trims the two names; when it changed nothing the raw body is the payload's JSON already.
+      const raw = json as { source?: unknown; externalId?: unknown };
+      const unchanged = raw.source === parsed.data.source && raw.externalId === parsed.data.externalId;
+      const result = await ingestCandidate(parsed.data, receivedAt, unchanged ? { payloadJson: rawBody } : {});
       // The derived quantities are already JSON text (as stored); splice them in rather than parse and re-serialise.
       const body = `{"id":${JSON.stringify(result.id)},"revision":${result.revision},"derived":${result.derivedJson},"outcome":"${result.outcome}"}`;
       return new Response(body, { status: result.status, headers: answerHeaders });

@@ -85,6 +85,30 @@ describe("ingesting a new candidate", () => {
   });
 });
 
+describe("the stored payload", () => {
+  async function storedPayload(candidateId: string) {
+    const db = await getDb();
+    const [revision] = await db.select().from(candidateRevisions).where(eq(candidateRevisions.candidateId, candidateId));
+    return revision?.payload;
+  }
+
+  it("is the body as posted (here pretty-printed) when validation changed nothing", async () => {
+    const payload = samplePayload();
+    const res = await route(feedRequest(JSON.stringify(payload, null, 2), { nowMs: clockMs }));
+    expect(res.status).toBe(201);
+    expect(await storedPayload((await res.json()).id)).toEqual(payload);
+  });
+
+  it("is the validated payload when validation trimmed a name", async () => {
+    const payload = samplePayload();
+    const padded = { ...payload, source: `  ${payload.source} `, externalId: ` ${payload.externalId}` };
+    const res = await route(feedRequest(JSON.stringify(padded), { nowMs: clockMs }));
+    expect(res.status).toBe(201);
+    const stored = await storedPayload((await res.json()).id);
+    expect(stored).toEqual(payload);
+  });
+});
+
 describe("all or nothing", () => {
   it("rolls the whole revision back when a step inside the transaction fails", async () => {
     vi.mocked(onCandidateIngested).mockRejectedValueOnce(new Error("paging outbox unavailable"));
