@@ -9,7 +9,7 @@
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { createServer } from "node:net";
 import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
@@ -54,6 +54,22 @@ function processCpuSeconds(pid: number): number {
   } catch {
     return Number.NaN;
   }
+}
+
+/** CPU seconds of each thread of a process, keyed by "name/tid" (Linux /proc/<pid>/task). */
+function threadCpuSeconds(pid: number): Map<string, number> {
+  const out = new Map<string, number>();
+  try {
+    for (const tid of readdirSync(`/proc/${pid}/task`)) {
+      const stat = readFileSync(`/proc/${pid}/task/${tid}/stat`, "utf8");
+      const name = stat.slice(stat.indexOf("(") + 1, stat.lastIndexOf(")"));
+      const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+      out.set(`${name}/${tid}`, (Number(fields[11]) + Number(fields[12])) / 100);
+    }
+  } catch {
+    // not Linux, or the process is gone
+  }
+  return out;
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -174,8 +190,18 @@ async function main(): Promise<void> {
 
     const serverPid = server.pid ?? 0;
     const cpuBefore = processCpuSeconds(serverPid);
+    const clientCpuBefore = process.cpuUsage();
+    const threadsBefore = threadCpuSeconds(serverPid);
     const served2 = await postAll(baseUrl, posts, secret);
     const serverCpuMs = ((processCpuSeconds(serverPid) - cpuBefore) * 1000) / posts.length;
+    const clientCpu = process.cpuUsage(clientCpuBefore);
+    const threadsAfter = threadCpuSeconds(serverPid);
+    const busiestThreads = [...threadsAfter]
+      .map(([key, seconds]) => [key, ((seconds - (threadsBefore.get(key) ?? 0)) * 1000) / posts.length] as const)
+      .filter(([, ms]) => ms >= 0.05)
+      .sort((a, b) => b[1] - a[1])
+      .slice(0, 4);
+    const clientCpuMs = (clientCpu.user + clientCpu.system) / 1000 / posts.length;
     const sorted = [...served2.latencies].sort((a, b) => a - b);
     const throughput = (posts.length / served2.wallMs) * 1000;
     console.log("\nHTTP ingest (next start, production build)");
@@ -185,7 +211,12 @@ async function main(): Promise<void> {
     console.log(`  latency p99      ${percentile(sorted, 99).toFixed(1)} ms`);
     console.log(`  latency max      ${(sorted.at(-1) ?? Number.NaN).toFixed(1)} ms`);
     console.log(`  throughput       ${throughput.toFixed(0)} candidates/s (wall ${(served2.wallMs / 1000).toFixed(2)} s)`);
-    console.log(`  server CPU       ${serverCpuMs.toFixed(1)} ms per candidate (user + system, from /proc)`);
+    console.log(`  server CPU       ${serverCpuMs.toFixed(1)} ms per candidate (user + system, all threads, from /proc)`);
+    console.log(`    by thread      ${busiestThreads.map(([key, ms]) => `${key.split("/")[0]} ${ms.toFixed(1)}`).join(", ")} (ms per candidate)`);
+    console.log(`  client CPU       ${clientCpuMs.toFixed(1)} ms per candidate (this process: signing and fetch)`);
+    // Server and client share this machine's cores, so CPU alone caps the rate however the work is spread.
+    const ceiling = (cpus().length * 1000) / (serverCpuMs + clientCpuMs);
+    console.log(`  CPU ceiling      ${ceiling.toFixed(0)} candidates/s (${cpus().length} cores ÷ server + client CPU per candidate)`);
 
     console.log("\nprecomputing derived quantities for the direct insert (not timed) …");
     const rows = await precomputeRows(posts);
