@@ -81,6 +81,14 @@ export class DerivePool {
     await Promise.all(lanes.map((lane) => lane.worker.terminate()));
   }
 
+  /** Threads do not work in this process: say so once, then compute inline. */
+  private turnOff(reason: unknown): void {
+    if (this.off) return;
+    this.off = true;
+    const why = reason instanceof Error ? reason.message : typeof reason === "number" ? `exit code ${reason}` : String(reason);
+    console.warn(`[chirpdesk] physics threads unavailable (${why}); computing derived quantities on the request thread`);
+  }
+
   private pickLane(): Lane | null {
     if (!this.threaded) return null;
     const idle = this.lanes.find((lane) => lane.inFlight.size === 0);
@@ -98,8 +106,8 @@ export class DerivePool {
     let worker: Worker;
     try {
       worker = this.start();
-    } catch {
-      this.off = true;
+    } catch (error) {
+      this.turnOff(error);
       return null;
     }
     const lane: Lane = { worker, inFlight: new Map(), answered: false };
@@ -112,11 +120,11 @@ export class DerivePool {
       pending.resolve({ json: result.json, headline: result.headline });
     });
     let ended = false;
-    const end = () => {
+    const end = (reason?: unknown) => {
       if (ended) return;
       ended = true;
       this.lanes = this.lanes.filter((l) => l !== lane);
-      if (!lane.answered) this.off = true;
+      if (!lane.answered) this.turnOff(reason);
       for (const pending of lane.inFlight.values()) pending.resolve(inline(pending.job));
       lane.inFlight.clear();
     };
