@@ -53,6 +53,44 @@ export function buildOpenApiDocument(serverUrl?: string) {
           },
         },
       },
+      "/api/v1/feed/candidates/{source}/{externalId}/skymap": {
+        post: {
+          summary: "Attach a HEALPix sky map (FITS binary table) to a candidate the feed posted",
+          description:
+            "multipart/form-data with one file in the field \"file\": a flat RING/NESTED or multi-order (NUNIQ) HEALPix " +
+            "map, optionally gzip-compressed, at most 200 MB. Signed like the candidate feed, but the HMAC covers the raw " +
+            "body bytes: HMAC-SHA256 over \"<X-Feed-Timestamp>.\" followed by the body. The map is analysed (50 % and " +
+            "90 % credible areas, peak) and stored for the candidate's current revision; a refused file leaves nothing behind.",
+          security: [],
+          parameters: [
+            { name: "source", in: "path", required: true, schema: { type: "string" } },
+            { name: "externalId", in: "path", required: true, schema: { type: "string" } },
+            { name: "X-Feed-Timestamp", in: "header", required: true, schema: { type: "string", pattern: "^\\d+$" } },
+            {
+              name: "X-Feed-Signature",
+              in: "header",
+              required: true,
+              schema: { type: "string", pattern: "^sha256=[0-9a-f]{64}$" },
+            },
+          ],
+          requestBody: {
+            required: true,
+            content: {
+              "multipart/form-data": {
+                schema: { type: "object", required: ["file"], properties: { file: { type: "string", format: "binary" } } },
+              },
+            },
+          },
+          responses: {
+            "201": { description: "stored and analysed; the answer names the stored map and its credible areas" },
+            "401": failure("signature missing, wrong or stale"),
+            "404": failure("no candidate with this source and externalId"),
+            "413": failure("file over 200 MB"),
+            "415": failure("not a FITS file"),
+            "422": failure("not a HEALPix map this server reads, or no file field; the reason names the fault"),
+          },
+        },
+      },
       "/api/v1/candidates/{id}": {
         get: {
           summary: "One candidate with state, revisions, tasks and the current payload",

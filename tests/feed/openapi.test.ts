@@ -1,7 +1,10 @@
+import { readdirSync, readFileSync } from "node:fs";
+import path from "node:path";
 import { NextRequest } from "next/server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET } from "@/app/api/v1/openapi.json/route";
 import { createApiToken } from "@/lib/auth/api-tokens";
+import { buildOpenApiDocument } from "@/lib/feed/openapi";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { setTestEnvironment } from "./support/feed-helpers";
 
@@ -45,5 +48,17 @@ describe("GET /api/v1/openapi.json", () => {
     // Every $ref points at a schema that exists.
     const refs = JSON.stringify(doc).match(/#\/components\/schemas\/[A-Za-z]+/g) ?? [];
     for (const ref of refs) expect(doc.components.schemas[ref.split("/").pop() as string]).toBeDefined();
+  });
+
+  it("documents every route the feed posts to, with the methods each exports", async () => {
+    const doc = buildOpenApiDocument();
+    const routes = readdirSync("app/api/v1/feed", { recursive: true, encoding: "utf8" }).filter((f) => f.endsWith("route.ts"));
+    expect(routes.length).toBeGreaterThanOrEqual(2);
+    for (const file of routes) {
+      const apiPath = `/api/v1/feed/${path.dirname(file)}`.replace(/\[([^\]]+)\]/g, "{$1}");
+      const methods = [...readFileSync(path.join("app/api/v1/feed", file), "utf8").matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)];
+      expect(doc.paths, apiPath).toHaveProperty([apiPath]);
+      for (const [, method] of methods) expect(doc.paths[apiPath as keyof typeof doc.paths], `${method} ${apiPath}`).toHaveProperty([method!.toLowerCase()]);
+    }
   });
 });
