@@ -65,6 +65,10 @@ export function validateSourceClassSettings(settings: SourceClassSettings): Phys
   return succeed(null);
 }
 
+function exhausted(): PhysicsResult<never> {
+  return fail("sampling-exhausted", "too many rejected draws (distribution mostly outside the allowed range)");
+}
+
 /**
  * Class probabilities, P(NS) and P(matter outside the hole) from `settings.sampleCount` seeded draws; masses in M☉
  * (detector frame in, source frame m/(1+z) for the thresholds), distance in Mpc. Sources: see the module comment.
@@ -94,15 +98,14 @@ export function computeSourceClasses(
   const random = new SeededRandom(seed);
   const maxDraws = MAX_DRAWS_PER_SAMPLE * sampleCount;
   let draws = 0;
-  // Truncated normal on (0, upper] by rejection; NaN signals the draw budget is spent.
-  const drawPositive = (estimate: GaussianEstimate, upper: number): number => {
-    while (draws < maxDraws) {
-      draws++;
-      const value = estimate.mean + estimate.sd * random.normal();
-      if (value > 0 && value <= upper) return value;
-    }
-    return Number.NaN;
-  };
+  // Plain locals in the hot loop (about 6·10⁴ draws per trigger).
+  const mean1 = input.mass1DetectorFrame.mean;
+  const sd1 = input.mass1DetectorFrame.sd;
+  const mean2 = input.mass2DetectorFrame.mean;
+  const sd2 = input.mass2DetectorFrame.sd;
+  const distanceMean = distance?.mean ?? 0;
+  const distanceSd = distance?.sd ?? 0;
+  const maxDistance = table?.maxLuminosityDistanceMpc ?? 0;
   const iscoRadius1 = iscoRadius(input.chi1);
   const iscoRadius2 = iscoRadius(input.chi2);
   let bns = 0;
@@ -112,11 +115,26 @@ export function computeSourceClasses(
   let neutronStar = 0;
   let remnantMatter = 0;
   for (let i = 0; i < sampleCount; i++) {
-    const m1 = drawPositive(input.mass1DetectorFrame, Infinity);
-    const m2 = drawPositive(input.mass2DetectorFrame, Infinity);
-    const z = distance === null || table === null ? 0 : table.redshift(drawPositive(distance, table.maxLuminosityDistanceMpc));
-    if (Number.isNaN(m1) || Number.isNaN(m2) || Number.isNaN(z)) {
-      return fail("sampling-exhausted", "too many rejected draws (distribution mostly outside the allowed range)");
+    // Truncated normals by rejection, always in the order m1, m2, distance, so a seed gives the same draws:
+    // masses on (0, ∞), distance on (0, the table's end]. Spending the whole draw budget fails the estimate.
+    let m1: number;
+    do {
+      if (draws++ >= maxDraws) return exhausted();
+      m1 = mean1 + sd1 * random.normal();
+    } while (!(m1 > 0));
+    let m2: number;
+    do {
+      if (draws++ >= maxDraws) return exhausted();
+      m2 = mean2 + sd2 * random.normal();
+    } while (!(m2 > 0));
+    let z = 0;
+    if (table !== null) {
+      let d: number;
+      do {
+        if (draws++ >= maxDraws) return exhausted();
+        d = distanceMean + distanceSd * random.normal();
+      } while (!(d > 0 && d <= maxDistance));
+      z = table.redshift(d);
     }
     const swap = m2 > m1;
     const heavy = (swap ? m2 : m1) / (1 + z);
