@@ -5,6 +5,8 @@
  * migrated SQLite file, posts signed candidates with 1000-sample tracks at concurrency 8 and prints latency
  * percentiles and throughput; then writes the same rows straight through the libSQL client (same tables, same
  * transaction shape, derived quantities precomputed) and prints the overhead ratio. Figures only, no assertions.
+ * It also posts the same bodies with a wrong signature (read, HMAC, 401) as the floor any route pays, and prints
+ * server and client CPU per post with the rate they allow on this machine's cores.
  * `--profile DIR` also writes CPU profiles of the server (one per thread) into DIR.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
@@ -241,6 +243,15 @@ async function main(): Promise<void> {
     // Server and client share this machine's cores, so CPU alone caps the rate however the work is spread.
     const ceiling = (cpus().length * 1000) / (serverCpuMs + clientCpuMs);
     console.log(`  CPU ceiling      ${ceiling.toFixed(0)} candidates/s (${cpus().length} cores ÷ server + client CPU per candidate)`);
+
+    // The floor under any route: the same posts signed with a wrong secret are read whole, their HMAC checked and
+    // answered 401, with no JSON, validation, physics or database. What Next, HTTP and the body cost by themselves.
+    const floorCpuBefore = processCpuSeconds(serverPid);
+    const floor = await postAll(baseUrl, posts, `${secret}-wrong`);
+    const floorCpuMs = ((processCpuSeconds(serverPid) - floorCpuBefore) * 1000) / posts.length;
+    console.log("\nFloor: the same posts with a wrong signature (body read, HMAC checked, 401; nothing else)");
+    console.log(`  statuses         ${[...floor.statuses].map(([s, n]) => `${s}×${n}`).join(", ")}`);
+    console.log(`  throughput       ${((posts.length / floor.wallMs) * 1000).toFixed(0)} posts/s; server CPU ${floorCpuMs.toFixed(1)} ms per post`);
 
     console.log("\nprecomputing derived quantities for the direct insert (not timed) …");
     const rows = await precomputeRows(posts);
