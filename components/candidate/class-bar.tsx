@@ -30,7 +30,7 @@ export function ClassTable({ p }: { p: ClassProbabilityMap | null }) {
   return (
     <ul className="space-y-1.5">
       {order.map((c) => (
-        <li key={c} className="grid grid-cols-[8.5rem_1fr_3.5rem] items-center gap-2 text-sm">
+        <li key={c} className="grid grid-cols-[minmax(0,8.5rem)_1fr_4.75rem] items-center gap-2 text-sm">
           <span className="flex items-center gap-1.5">
             <span aria-hidden className={cn("h-2.5 w-2.5 rounded-sm", classColourClasses[c])} />
             {classLongLabels[c]}
@@ -38,7 +38,7 @@ export function ClassTable({ p }: { p: ClassProbabilityMap | null }) {
           <span className="h-2 overflow-hidden rounded-sm bg-sunken" aria-hidden>
             <span className={cn("block h-full", classColourClasses[c])} style={{ width: `${p[c] * 100}%` }} />
           </span>
-          <span className="text-right font-mono tabular-nums">{formatPercent(p[c])}</span>
+          <span className="whitespace-nowrap text-right font-mono tabular-nums">{formatPercent(p[c])}</span>
         </li>
       ))}
     </ul>
