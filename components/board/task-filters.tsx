@@ -19,7 +19,7 @@ export interface TaskFilterValues {
 export function TaskFilters({ value, sites, onChange }: { value: TaskFilterValues; sites: SiteOption[]; onChange: (next: TaskFilterValues) => void }) {
   const [candidate, setCandidate] = useState(value.candidate);
   useEffect(() => {
-    if (candidate === value.candidate) return;
+    if (candidate.trim() === value.candidate) return;
     const timer = setTimeout(() => onChange({ ...value, candidate: candidate.trim() }), 300);
     return () => clearTimeout(timer);
   }, [candidate, value, onChange]);

@@ -16,10 +16,6 @@ export function setLiveStatus(next: LiveStatus): void {
   for (const listener of statusListeners) listener();
 }
 
-export function getLiveStatus(): LiveStatus {
-  return status;
-}
-
 /** Hands one event from the stream (or the polling fallback) to every subscriber. */
 export function publishLiveEvent(event: WireEvent): void {
   for (const listener of eventListeners) listener(event);

@@ -1,4 +1,4 @@
-import type { Role } from "@/db/schema/roles";
+import { can, type Role } from "@/lib/auth/roles";
 
 export interface NavItem {
   href: string;
@@ -8,7 +8,7 @@ export interface NavItem {
   roles: readonly Role[];
 }
 
-const everyone: readonly Role[] = ["shifter", "observer", "coordinator", "admin"];
+const everyone = can.read;
 
 export const navItems: NavItem[] = [
   { href: "/triage", label: "Triage board", icon: "triage", roles: everyone },
@@ -19,8 +19,8 @@ export const navItems: NavItem[] = [
   { href: "/sites", label: "Sites", icon: "sites", roles: everyone },
   { href: "/notifications", label: "Pages & alerts", icon: "notifications", roles: everyone },
   { href: "/settings", label: "Settings", icon: "settings", roles: everyone },
-  { href: "/admin/users", label: "People & roles", icon: "users", roles: ["coordinator", "admin"] },
-  { href: "/dead-letters", label: "Rejected feed posts", icon: "dead-letters", roles: ["coordinator", "admin"] },
+  { href: "/admin/users", label: "People & roles", icon: "users", roles: can.manageUsers },
+  { href: "/dead-letters", label: "Rejected feed posts", icon: "dead-letters", roles: can.readDeadLetters },
 ];
 
 export const devNavItems: NavItem[] = [{ href: "/dev/mailbox", label: "Dev mailbox", icon: "mailbox", roles: everyone }];

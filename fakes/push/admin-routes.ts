@@ -1,4 +1,5 @@
 // The fake's own JSON admin API under /_admin, for tests, the dev mailbox-style pages and other processes.
+import { parseSinceAfter } from "../message-filter";
 import type { Reply } from "./push-route";
 import type { FakePushSubscription, MessageFilter, PushStore, StoredPushMessage } from "./store";
 
@@ -31,23 +32,12 @@ export function messageJson(m: StoredPushMessage) {
   };
 }
 
-/** `since` is epoch milliseconds or an ISO 8601 instant; `after` a message seq. */
+/** The shared `since`/`after` filter plus `subscription`. */
 function parseFilter(query: URLSearchParams): MessageFilter | string {
-  const filter: MessageFilter = {};
-  const since = query.get("since");
-  if (since !== null) {
-    const sinceMs = /^\d+$/.test(since) ? Number(since) : Date.parse(since);
-    if (Number.isNaN(sinceMs)) return "since must be epoch milliseconds or an ISO 8601 time";
-    filter.sinceMs = sinceMs;
-  }
-  const after = query.get("after");
-  if (after !== null) {
-    if (!/^\d+$/.test(after)) return "after must be a message seq";
-    filter.afterSeq = Number(after);
-  }
+  const filter = parseSinceAfter(query);
+  if (typeof filter === "string") return filter;
   const subscription = query.get("subscription");
-  if (subscription !== null) filter.subscriptionId = subscription;
-  return filter;
+  return subscription === null ? filter : { ...filter, subscriptionId: subscription };
 }
 
 function isRecord(value: unknown): value is Record<string, unknown> {

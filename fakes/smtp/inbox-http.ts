@@ -3,6 +3,7 @@
 import { createServer } from "node:http";
 import type { ServerResponse } from "node:http";
 import type { AddressInfo } from "node:net";
+import { parseSinceAfter } from "../message-filter";
 import type { FakeSmtp, MailFilter, OutageMode } from "./server";
 import type { StoredMail, StoredMailJson } from "./stored-mail";
 
@@ -16,22 +17,12 @@ function reply(res: ServerResponse, status: number, json?: unknown): void {
   res.writeHead(status, { "content-type": "application/json; charset=utf-8" }).end(JSON.stringify(json));
 }
 
+/** The shared `since`/`after` filter plus `to`. */
 function parseFilter(query: URLSearchParams): MailFilter | string {
-  const filter: MailFilter = {};
-  const since = query.get("since");
-  if (since !== null) {
-    const sinceMs = /^\d+$/.test(since) ? Number(since) : Date.parse(since);
-    if (Number.isNaN(sinceMs)) return "since must be epoch milliseconds or an ISO 8601 time";
-    filter.sinceMs = sinceMs;
-  }
-  const after = query.get("after");
-  if (after !== null) {
-    if (!/^\d+$/.test(after)) return "after must be a message seq";
-    filter.afterSeq = Number(after);
-  }
+  const filter = parseSinceAfter(query);
+  if (typeof filter === "string") return filter;
   const to = query.get("to");
-  if (to !== null) filter.to = to;
-  return filter;
+  return to === null ? filter : { ...filter, to };
 }
 
 async function readJson(req: AsyncIterable<Buffer>): Promise<unknown> {

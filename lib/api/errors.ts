@@ -18,9 +18,7 @@ export class ApiError extends Error {
 }
 
 export const unauthorized = (message = "sign in or send a bearer token") => new ApiError(401, message);
-export const forbidden = (message = "your role does not allow this") => new ApiError(403, message);
 export const notFound = (what: string) => new ApiError(404, `${what} not found`);
-export const conflict = (message: string, details?: Record<string, unknown>) => new ApiError(409, message, details);
 
 /** Every field at fault, as "a.b.0.c: message". */
 export function zodIssues(error: ZodError): FieldIssue[] {

@@ -4,7 +4,7 @@ import type { z, ZodType } from "zod";
 import { resolveRequestUser } from "@/lib/auth/session";
 import { hasRole, type Role, type SessionUser } from "@/lib/auth/roles";
 import { readBodyBytes } from "./body";
-import { ApiError, invalid } from "./errors";
+import { ApiError, invalid, unauthorized } from "./errors";
 
 /** The request body limit unless a route says otherwise. */
 const DEFAULT_MAX_BODY_BYTES = 1_000_000;
@@ -42,7 +42,7 @@ export function handler<B extends ZodType | undefined = undefined, Q extends Zod
     const requestId = randomUUID();
     try {
       const user = await resolveRequestUser(req.headers);
-      if (!user) throw new ApiError(401, "sign in or send a bearer token");
+      if (!user) throw unauthorized();
       if (!hasRole(user, options.roles)) {
         throw new ApiError(403, `your role (${user.role}) may not do this; allowed: ${options.roles.join(", ")}`);
       }

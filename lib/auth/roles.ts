@@ -12,6 +12,11 @@ export interface SessionUser {
   initials: string;
 }
 
+/** The session view of a stored person (a users row, or anything with its fields). */
+export function toSessionUser(row: SessionUser): SessionUser {
+  return { id: row.id, email: row.email, name: row.name, role: row.role, timeZone: row.timeZone, initials: row.initials };
+}
+
 /** Who may do what, named once so routes and pages read the same list. */
 export const can = {
   triage: ["shifter", "coordinator"],

@@ -7,7 +7,7 @@ import { getDb } from "@/db";
 import { users } from "@/db/schema";
 import { resolveApiToken } from "./api-tokens";
 import { buildAuthOptions } from "./options";
-import { hasRole, type Role, type SessionUser } from "./roles";
+import { hasRole, toSessionUser, type Role, type SessionUser } from "./roles";
 
 /** Reads the person behind a user id afresh, so a role change or a disabled account applies at once. */
 export async function loadSessionUser(userId: string): Promise<SessionUser | null> {
@@ -15,7 +15,7 @@ export async function loadSessionUser(userId: string): Promise<SessionUser | nul
   const db = await getDb();
   const [row] = await db.select().from(users).where(eq(users.id, userId)).limit(1);
   if (!row || row.disabledAt) return null;
-  return { id: row.id, email: row.email, name: row.name, role: row.role, timeZone: row.timeZone, initials: row.initials };
+  return toSessionUser(row);
 }
 
 /** The signed-in person from the session cookie, or null. */

@@ -14,12 +14,9 @@ import {
   type TriageState,
 } from "@/db/schema";
 import { diffHeadlines, headlineFromDerived, type HeadlineChange, type RevisionHeadline } from "@/lib/feed/headline";
+import type { PersonRef } from "./candidates";
 
-export interface PersonRef {
-  id: string;
-  name: string;
-  initials: string;
-}
+export type { PersonRef } from "./candidates";
 
 export interface CandidateRevisionSummary {
   revision: number;

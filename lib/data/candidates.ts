@@ -135,22 +135,23 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
   };
 }
 
-export interface CandidateListRow {
-  id: string;
-  externalId: string;
-  source: string;
-  revision: number;
-  stage: Stage;
-  triageState: TriageState;
-  eventTime: number;
-  receivedAt: number;
-  falseAlarmRatePerYear: number;
-  networkSnr: number;
-  chirpMassDetectorFrame: number | null;
-  dominantClass: SourceClass | null;
-  detectors: string[];
-  owner: PersonRef | null;
-}
+/** One row of the candidate list: the card's headline fields plus the dominant class. */
+export type CandidateListRow = Pick<
+  BoardCard,
+  | "id"
+  | "externalId"
+  | "source"
+  | "revision"
+  | "stage"
+  | "triageState"
+  | "eventTime"
+  | "receivedAt"
+  | "falseAlarmRatePerYear"
+  | "networkSnr"
+  | "chirpMassDetectorFrame"
+  | "detectors"
+  | "owner"
+> & { dominantClass: SourceClass | null };
 
 export interface CandidateListPage {
   rows: CandidateListRow[];

@@ -1,4 +1,4 @@
-import { count, desc, eq, lt } from "drizzle-orm";
+import { desc, eq, lt } from "drizzle-orm";
 import { getDb } from "@/db";
 import { deadLetters } from "@/db/schema";
 import type { FieldIssue } from "@/lib/api/errors";
@@ -88,10 +88,4 @@ export async function getDeadLetter(id: string) {
   const db = await getDb();
   const [row] = await db.select().from(deadLetters).where(eq(deadLetters.id, id)).limit(1);
   return row ?? null;
-}
-
-export async function countDeadLetters(): Promise<number> {
-  const db = await getDb();
-  const [row] = await db.select({ n: count() }).from(deadLetters);
-  return row?.n ?? 0;
 }

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gt } from "drizzle-orm";
+import { asc, desc, gt } from "drizzle-orm";
 import { getDb, type Database } from "@/db";
 import { events, type AppEvent, type NewAppEvent } from "@/db/schema";
 
@@ -25,14 +25,4 @@ export async function latestEventId(): Promise<number> {
   const db = await getDb();
   const [row] = await db.select({ id: events.id }).from(events).orderBy(desc(events.id)).limit(1);
   return row?.id ?? 0;
-}
-
-export async function listCandidateEvents(candidateId: string, limit = 500): Promise<AppEvent[]> {
-  const db = await getDb();
-  return db
-    .select()
-    .from(events)
-    .where(and(eq(events.candidateId, candidateId)))
-    .orderBy(asc(events.id))
-    .limit(limit);
 }

@@ -26,12 +26,6 @@ import { getSetting } from "./settings";
 /** created: a new candidate; revised: a new current revision; stale: kept in history only; duplicate: seen before. */
 export type IngestOutcome = "created" | "revised" | "stale" | "duplicate";
 
-export interface IngestAnswer {
-  id: string;
-  revision: number;
-  derived: Record<string, unknown>;
-}
-
 export interface IngestResult {
   status: 200 | 201;
   outcome: IngestOutcome;
@@ -43,11 +37,6 @@ export interface IngestResult {
 
 const openTaskStates = ["open", "claimed", "observing"] as const;
 const withdrawalReason = "the feed withdrew the candidate";
-
-/** The route's answer `{ id, revision, derived }` as an object (tests, seeding and scripts). */
-export function ingestAnswer(result: IngestResult): IngestAnswer {
-  return { id: result.id, revision: result.revision, derived: JSON.parse(result.derivedJson) as Record<string, unknown> };
-}
 
 /**
  * Stores one validated feed revision: candidate, revision, derived quantities, events and paging hooks in one

@@ -58,50 +58,40 @@ export async function transitionCandidate(input: TransitionInput): Promise<Trans
   }
   const db = await getDb();
   return db.transaction(async (tx) => {
-      const now = input.now ?? new Date();
-      const current = await readCandidate(tx, candidateId);
-      if (input.expectedVersion !== undefined && input.expectedVersion !== current.version) {
-        throw await staleError(tx, current, "the candidate changed since you loaded it");
-      }
-      if (current.triageState === to) {
-        throw await staleError(tx, current, `the candidate is already in "${triageLabels[to]}"`);
-      }
-      if (!canTransition(current.triageState, to)) {
-        throw new ApiError(422, `cannot move from "${triageLabels[current.triageState]}" to "${triageLabels[to]}"`, {
-          from: current.triageState,
-          to,
-          allowed: allowedTransitions[current.triageState],
-        });
-      }
-      if (to === "pursue" && current.stage === "withdrawn") {
-        throw new ApiError(422, "the feed withdrew this candidate; it cannot go for follow-up");
-      }
-      const acknowledging = acknowledges(current.triageState, to);
-      const [updated] = await tx
-        .update(candidates)
-        .set({
-          triageState: to,
-          updatedAt: now,
-          version: sql`${candidates.version} + 1`,
-          ...(acknowledging ? { acknowledgedAt: now, acknowledgedById: actor.id } : {}),
-          ...(isDecision(to) ? { decidedAt: now } : {}),
-          dismissReason: to === "dismissed" ? (reason ?? null) : null,
-        })
-        .where(and(eq(candidates.id, candidateId), eq(candidates.version, current.version)))
-        .returning();
-      if (!updated) throw await staleError(tx, await readCandidate(tx, candidateId), "the candidate changed meanwhile");
-      const event = await appendEvent(tx, {
-        at: now,
-        kind: eventKinds.candidateTriaged,
-        actorId: actor.id,
-        candidateId,
-        fromState: current.triageState,
-        toState: to,
-        data: { via, version: updated.version, ...(reason ? { reason } : {}) },
+    const now = input.now ?? new Date();
+    const current = await readCurrent(tx, candidateId, input.expectedVersion);
+    if (current.triageState === to) {
+      throw await staleError(tx, current, `the candidate is already in "${triageLabels[to]}"`);
+    }
+    if (!canTransition(current.triageState, to)) {
+      throw new ApiError(422, `cannot move from "${triageLabels[current.triageState]}" to "${triageLabels[to]}"`, {
+        from: current.triageState,
+        to,
+        allowed: allowedTransitions[current.triageState],
       });
-      if (acknowledging) await onCandidateAcknowledged(tx, { candidateId, userId: actor.id, at: now });
-      return { candidate: updated, event };
+    }
+    if (to === "pursue" && current.stage === "withdrawn") {
+      throw new ApiError(422, "the feed withdrew this candidate; it cannot go for follow-up");
+    }
+    const acknowledging = acknowledges(current.triageState, to);
+    const updated = await writeVersioned(tx, current, now, {
+      triageState: to,
+      ...(acknowledging ? { acknowledgedAt: now, acknowledgedById: actor.id } : {}),
+      ...(isDecision(to) ? { decidedAt: now } : {}),
+      dismissReason: to === "dismissed" ? (reason ?? null) : null,
     });
+    const event = await appendEvent(tx, {
+      at: now,
+      kind: eventKinds.candidateTriaged,
+      actorId: actor.id,
+      candidateId,
+      fromState: current.triageState,
+      toState: to,
+      data: { via, version: updated.version, ...(reason ? { reason } : {}) },
+    });
+    if (acknowledging) await onCandidateAcknowledged(tx, { candidateId, userId: actor.id, at: now });
+    return { candidate: updated, event };
+  });
 }
 
 export interface AssignInput {
@@ -122,34 +112,51 @@ export async function assignCandidate(input: AssignInput): Promise<TransitionRes
   }
   const db = await getDb();
   return db.transaction(async (tx) => {
-      const now = input.now ?? new Date();
-      const current = await readCandidate(tx, candidateId);
-      if (input.expectedVersion !== undefined && input.expectedVersion !== current.version) {
-        throw await staleError(tx, current, "the candidate changed since you loaded it");
+    const now = input.now ?? new Date();
+    const current = await readCurrent(tx, candidateId, input.expectedVersion);
+    if (ownerId) {
+      const [owner] = await tx.select().from(users).where(eq(users.id, ownerId)).limit(1);
+      if (!owner || owner.disabledAt) throw new ApiError(404, "person not found");
+      if (!hasRole(owner, can.triage)) {
+        throw new ApiError(422, `${owner.name} is an ${owner.role} and cannot own a candidate`);
       }
-      if (ownerId) {
-        const [owner] = await tx.select().from(users).where(eq(users.id, ownerId)).limit(1);
-        if (!owner || owner.disabledAt) throw new ApiError(404, "person not found");
-        if (!hasRole(owner, can.triage)) {
-          throw new ApiError(422, `${owner.name} is an ${owner.role} and cannot own a candidate`);
-        }
-      }
-      if (current.ownerId === ownerId) throw await staleError(tx, current, "the candidate already has that owner");
-      const [updated] = await tx
-        .update(candidates)
-        .set({ ownerId, updatedAt: now, version: sql`${candidates.version} + 1` })
-        .where(and(eq(candidates.id, candidateId), eq(candidates.version, current.version)))
-        .returning();
-      if (!updated) throw await staleError(tx, await readCandidate(tx, candidateId), "the candidate changed meanwhile");
-      const event = await appendEvent(tx, {
-        at: now,
-        kind: eventKinds.candidateAssigned,
-        actorId: actor.id,
-        candidateId,
-        data: { ownerId, previousOwnerId: current.ownerId, via, version: updated.version },
-      });
-      return { candidate: updated, event };
+    }
+    if (current.ownerId === ownerId) throw await staleError(tx, current, "the candidate already has that owner");
+    const updated = await writeVersioned(tx, current, now, { ownerId });
+    const event = await appendEvent(tx, {
+      at: now,
+      kind: eventKinds.candidateAssigned,
+      actorId: actor.id,
+      candidateId,
+      data: { ownerId, previousOwnerId: current.ownerId, via, version: updated.version },
     });
+    return { candidate: updated, event };
+  });
+}
+
+/** The candidate, or 404; a caller's expected version that differs from the stored one is a 409. */
+async function readCurrent(tx: Tx, candidateId: string, expectedVersion: number | undefined): Promise<Candidate> {
+  const current = await readCandidate(tx, candidateId);
+  if (expectedVersion !== undefined && expectedVersion !== current.version) {
+    throw await staleError(tx, current, "the candidate changed since you loaded it");
+  }
+  return current;
+}
+
+/** Applies a board change if nobody wrote since `current` was read (optimistic concurrency), bumping the version. */
+async function writeVersioned(
+  tx: Tx,
+  current: Candidate,
+  now: Date,
+  changes: Partial<Pick<Candidate, "triageState" | "acknowledgedAt" | "acknowledgedById" | "decidedAt" | "dismissReason" | "ownerId">>,
+): Promise<Candidate> {
+  const [updated] = await tx
+    .update(candidates)
+    .set({ ...changes, updatedAt: now, version: sql`${candidates.version} + 1` })
+    .where(and(eq(candidates.id, current.id), eq(candidates.version, current.version)))
+    .returning();
+  if (!updated) throw await staleError(tx, await readCandidate(tx, current.id), "the candidate changed meanwhile");
+  return updated;
 }
 
 async function readCandidate(tx: Tx, candidateId: string): Promise<Candidate> {

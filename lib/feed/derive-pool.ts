@@ -142,10 +142,3 @@ export function derivePool(): DerivePool {
   globalForPool.chirpdeskDerivePool ??= new DerivePool(physicsThreadCount());
   return globalForPool.chirpdeskDerivePool;
 }
-
-/** Stops the threads and forgets the pool; the next job starts a fresh one. */
-export async function closeDerivePool(): Promise<void> {
-  const pool = globalForPool.chirpdeskDerivePool;
-  globalForPool.chirpdeskDerivePool = undefined;
-  await pool?.close();
-}

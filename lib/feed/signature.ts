@@ -8,13 +8,16 @@ export const signatureToleranceSeconds = 5 * 60;
 
 export type SignatureCheck = { ok: true } | { ok: false; reason: string };
 
-/** Hex HMAC-SHA256 of "<timestamp>.<raw body>" (RFC 2104 HMAC over SHA-256). */
-export function computeFeedSignature(secret: string, timestampSeconds: number | string, rawBody: string): string {
-  return createHmac("sha256", secret).update(`${timestampSeconds}.${rawBody}`).digest("hex");
+/**
+ * Hex HMAC-SHA256 of "<timestamp>." followed by the raw body (RFC 2104 HMAC over SHA-256). The body is text for
+ * JSON posts and bytes for multipart uploads (a binary file is not text); for a UTF-8 body both give one digest.
+ */
+export function computeFeedSignature(secret: string, timestampSeconds: number | string, rawBody: string | Uint8Array): string {
+  return createHmac("sha256", secret).update(`${timestampSeconds}.`).update(rawBody).digest("hex");
 }
 
 /** The two headers a poster sends. */
-export function signFeedBody(secret: string, rawBody: string, nowMs: number): Record<string, string> {
+export function signFeedBody(secret: string, rawBody: string | Uint8Array, nowMs: number): Record<string, string> {
   const timestamp = Math.floor(nowMs / 1000);
   return {
     "X-Feed-Timestamp": String(timestamp),
@@ -26,7 +29,7 @@ export function signFeedBody(secret: string, rawBody: string, nowMs: number): Re
 export function verifyFeedSignature(
   secret: string,
   headers: Headers,
-  rawBody: string,
+  rawBody: string | Uint8Array,
   nowMs: number,
 ): SignatureCheck {
   const timestamp = headers.get(timestampHeader);

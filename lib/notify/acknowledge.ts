@@ -2,7 +2,7 @@ import { and, eq, isNull } from "drizzle-orm";
 import { getDb } from "@/db";
 import { ackTokens, candidates, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import type { SessionUser } from "@/lib/auth/roles";
+import { loadSessionUser } from "@/lib/auth/session";
 import { transitionCandidate } from "@/lib/data/triage";
 import { ackLinkSecret, verifyAckToken } from "./ack-links";
 import type { CandidateSummary } from "./content";
@@ -30,13 +30,6 @@ const refusals: Record<AckRefusal, { message: string; httpStatus: number }> = {
 
 const refuse = (reason: AckRefusal, extra: { usedAt?: string } = {}): AckLinkState => ({ state: "refused", reason, ...refusals[reason], ...extra });
 
-async function actorOf(userId: string): Promise<SessionUser | null> {
-  const db = await getDb();
-  const [row] = await db.select().from(users).where(eq(users.id, userId)).limit(1);
-  if (!row || row.disabledAt) return null;
-  return { id: row.id, email: row.email, name: row.name, role: row.role, timeZone: row.timeZone, initials: row.initials };
-}
-
 async function candidateState(candidateId: string) {
   const db = await getDb();
   const [row] = await db
@@ -59,7 +52,7 @@ export async function describeAckLink(token: string, now: Date, justUsed = false
   const check = await verifyAckToken(db, token, now, secret);
   if (!check.ok) return refuse(check.reason);
   const found = await candidateState(check.claims.candidateId);
-  const person = await actorOf(check.claims.userId);
+  const person = await loadSessionUser(check.claims.userId);
   if (!found || !person) return refuse("forged");
   const { candidate, ackName } = found;
   if (check.usedAt && !justUsed) return refuse("used", { usedAt: check.usedAt.toISOString() });
@@ -92,7 +85,7 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
   const check = await verifyAckToken(db, token, now, secret);
   if (!check.ok) return fail(check.reason);
   if (check.usedAt) return fail("used");
-  const actor = await actorOf(check.claims.userId);
+  const actor = await loadSessionUser(check.claims.userId);
   if (!actor) return fail("forged");
   const spent = await db.update(ackTokens).set({ usedAt: now }).where(and(eq(ackTokens.id, check.claims.id), isNull(ackTokens.usedAt))).returning({ id: ackTokens.id });
   if (spent.length === 0) return fail("used");

@@ -58,6 +58,41 @@ function fitWarnings(reducedChiSquare: number | null): string[] {
     : [];
 }
 
+/** What both track fits report, whichever form the track had. */
+interface CommonFit {
+  samplesUsed: number;
+  reducedChiSquare: number | null;
+  uncertaintyScale: number;
+  weighting: FitDiagnostics["weighting"];
+  chirpMassDetectorFrame: number;
+  chirpMassDetectorFrameSd: number;
+}
+
+function fitOutcome(
+  fit: CommonFit,
+  f: readonly number[],
+  residual: Pick<FitDiagnostics, "trackKind" | "residualRms" | "residualRmsUnit">,
+  plot: FitPlot,
+  coalescence: ValueWithSd | null,
+): TrackFitOutcome {
+  const range = frequencyRange(f);
+  return {
+    fit: {
+      ...residual,
+      samplesUsed: fit.samplesUsed,
+      reducedChiSquare: fit.reducedChiSquare,
+      uncertaintyScale: fit.uncertaintyScale,
+      weighting: fit.weighting,
+      frequencyMinHz: range.min,
+      frequencyMaxHz: range.max,
+      warnings: fitWarnings(fit.reducedChiSquare),
+    },
+    plot,
+    chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
+    coalescence,
+  };
+}
+
 function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): PhysicsResult<TrackFitOutcome> {
   if (track === undefined || track === null || typeof track !== "object") return fail("missing-input", "no frequency track");
   if ("t" in track) {
@@ -65,49 +100,20 @@ function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): Phy
     const result = fitTimeTrack(timeTrack);
     if (!result.ok) return result;
     const fit = result.value;
-    const range = frequencyRange(track.f);
-    const warnings = fitWarnings(fit.reducedChiSquare);
-    return succeed({
-      fit: {
-        trackKind: "time",
-        residualRms: Number.isFinite(fit.residualRmsHz) ? fit.residualRmsHz : null,
-        residualRmsUnit: "Hz",
-        samplesUsed: fit.samplesUsed,
-        reducedChiSquare: fit.reducedChiSquare,
-        uncertaintyScale: fit.uncertaintyScale,
-        weighting: fit.weighting,
-        frequencyMinHz: range.min,
-        frequencyMaxHz: range.max,
-        warnings,
-      },
-      plot: timeTrackPlot(fit, track.t, track.f),
-      chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
-      coalescence: { value: fit.coalescenceTimeS, sd: fit.coalescenceTimeSd },
-    });
+    const residualRms = Number.isFinite(fit.residualRmsHz) ? fit.residualRmsHz : null;
+    return succeed(
+      fitOutcome(fit, track.f, { trackKind: "time", residualRms, residualRmsUnit: "Hz" }, timeTrackPlot(fit, track.t, track.f), {
+        value: fit.coalescenceTimeS,
+        sd: fit.coalescenceTimeSd,
+      }),
+    );
   }
   const derivativeTrack: DerivativeTrackInput = track;
   const result = fitDerivativeTrack(derivativeTrack);
   if (!result.ok) return result;
   const fit = result.value;
-  const range = frequencyRange(track.f);
-  const warnings = fitWarnings(fit.reducedChiSquare);
-  return succeed({
-    fit: {
-      trackKind: "derivative",
-      residualRms: fit.residualRmsFraction,
-      residualRmsUnit: "fraction",
-      samplesUsed: fit.samplesUsed,
-      reducedChiSquare: fit.reducedChiSquare,
-      uncertaintyScale: fit.uncertaintyScale,
-      weighting: fit.weighting,
-      frequencyMinHz: range.min,
-      frequencyMaxHz: range.max,
-      warnings,
-    },
-    plot: derivativeTrackPlot(fit, track.f, track.dfdt),
-    chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
-    coalescence: null,
-  });
+  const residual = { trackKind: "derivative", residualRms: fit.residualRmsFraction, residualRmsUnit: "fraction" } as const;
+  return succeed(fitOutcome(fit, track.f, residual, derivativeTrackPlot(fit, track.f, track.dfdt), null));
 }
 
 function isGaussian(value: GaussianEstimate | undefined): value is GaussianEstimate {

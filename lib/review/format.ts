@@ -15,11 +15,6 @@ export function formatDurationMs(ms: number | null): string {
   return hours ? `${days} d ${hours} h` : `${days} d`;
 }
 
-/** A deadline given in minutes, as people say it: "45 s", "4 min", "12 h". */
-export function formatMinutes(minutes: number): string {
-  return formatDurationMs(minutes * 60_000);
-}
-
 const pad = (n: number) => String(n).padStart(2, "0");
 
 /** A short axis label: "45 s", "3.8 min", "2.5 h", "4 d" (one decimal at most). */

@@ -34,7 +34,3 @@ export function stepDeadlinesMs(d: DeadlineSettings): Record<StepId, number> {
     report: ms(d.reportMinutes),
   };
 }
-
-export function isStepId(value: string): value is StepId {
-  return (stepIds as readonly string[]).includes(value);
-}

@@ -4,7 +4,7 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "@/db";
 import { candidates, escalations, notifications, sites, users } from "@/db/schema";
 import { FeedGenerator } from "@/fakes/feed/generator";
-import type { SessionUser } from "@/lib/auth/roles";
+import { toSessionUser, type SessionUser } from "@/lib/auth/roles";
 import { ingestCandidate } from "@/lib/data/ingest";
 import { uploadSkymap } from "@/lib/data/skymaps";
 import { claimTask, createTasks, moveTask, reportTask } from "@/lib/data/tasks";
@@ -26,10 +26,6 @@ function seeded(seed: number) {
   };
 }
 
-function asSessionUser(row: typeof users.$inferSelect): SessionUser {
-  return { id: row.id, email: row.email, name: row.name, role: row.role, timeZone: row.timeZone, initials: row.initials };
-}
-
 /**
  * A week of past activity, fed through the real ingest, triage and task paths with past clocks, so the boards,
  * candidate pages and the response-time review have something to show. Pages for these past candidates are
@@ -37,7 +33,7 @@ function asSessionUser(row: typeof users.$inferSelect): SessionUser {
  */
 export async function seedPastCandidates(db: Database, now: Date): Promise<number> {
   const rand = seeded(20261201);
-  const people = (await db.select().from(users)).map(asSessionUser);
+  const people = (await db.select().from(users)).map(toSessionUser);
   const byEmail = new Map(people.map((p) => [p.email, p]));
   const shifters = people.filter((p) => p.role === "shifter");
   const observers = people.filter((p) => p.role === "observer");

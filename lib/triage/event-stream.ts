@@ -127,7 +127,8 @@ export function createEventStream(options: EventStreamOptions): ReadableStream<U
 /** Reads the resume point: the Last-Event-ID header (a reconnecting EventSource), else `?after=`, else null. */
 export function resumePoint(headers: Headers, searchParams: URLSearchParams): number | null {
   for (const raw of [headers.get("last-event-id"), searchParams.get("after")]) {
-    if (raw !== null && /^\d+$/.test(raw.trim())) return Number(raw.trim());
+    // At most 15 digits: an event id is a safe integer, and a longer run of digits would read as Infinity.
+    if (raw !== null && /^\d{1,15}$/.test(raw.trim())) return Number(raw.trim());
   }
   return null;
 }

@@ -104,7 +104,7 @@ export const pushUnsubscribeSchema = z.object({ endpoint: z.string().min(1).max(
 export const notificationListQuerySchema = z.object({
   limit: z.coerce.number().int().min(1).max(200).default(50),
   /** only rows created before this instant (ms), for paging back */
-  before: z.coerce.number().int().positive().optional(),
+  before: z.coerce.number().int().positive().max(8_640_000_000_000_000).optional(), // the last instant a Date holds
   unread: z.enum(["1", "0"]).optional(),
 });
 

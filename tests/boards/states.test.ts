@@ -1,13 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { sourceClasses, stages, taskKinds, taskStates, triageStates } from "@/db/schema";
+import { candidateRevisions, candidates, followUpTasks } from "@/db/schema";
 import { sourceClassIds, stageIds, taskKindIds, taskStateIds, triageStateIds } from "@/lib/triage/states";
 
-describe("browser-side copies of the schema's ids", () => {
-  it("match the tables' enums exactly, in order", () => {
-    expect(triageStateIds).toEqual(triageStates);
-    expect(stageIds).toEqual(stages);
-    expect(sourceClassIds).toEqual(sourceClasses);
-    expect(taskKindIds).toEqual(taskKinds);
-    expect(taskStateIds).toEqual(taskStates);
+describe("the ids browser code lists", () => {
+  it("are the values the tables' columns accept, in order", () => {
+    expect(candidates.triageState.enumValues).toEqual(triageStateIds);
+    expect(candidates.stage.enumValues).toEqual(stageIds);
+    expect(candidateRevisions.stage.enumValues).toEqual(stageIds);
+    expect(candidates.dominantClass.enumValues).toEqual(sourceClassIds);
+    expect(followUpTasks.kind.enumValues).toEqual(taskKindIds);
+    expect(followUpTasks.state.enumValues).toEqual(taskStateIds);
   });
 });

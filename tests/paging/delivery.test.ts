@@ -84,6 +84,7 @@ describe("retries", () => {
     }
     expect(h.smtp.messages()).toHaveLength(0);
     const waiting = (await h.rows({ channel: "email" })).filter((r) => posted.some((p) => p.id === r.candidateId));
+    expect(waiting.length).toBeGreaterThanOrEqual(posted.length);
     expect(waiting.every((r) => r.status === "pending" && r.attempts >= 2 && (r.lastError ?? "").includes("421"))).toBe(true);
 
     await h.smtp.setDown(false);

@@ -88,6 +88,7 @@ describe("computeDerived", () => {
     const derived = computeDerived(withoutDistance, defaultPhysicsSettings, "seed");
     expect(derived.redshiftAssumed).toBe(true);
     expect(derived.redshift).toEqual({ value: 0, sd: 0 });
+    expect(derived.chirpMass?.sourceFrame).not.toBeNull();
     expect(derived.chirpMass?.sourceFrame?.value).toBe(derived.chirpMass?.detectorFrame.value);
   });
 

@@ -114,6 +114,7 @@ describe("GET /api/v1/review", () => {
     const r = await report("from=2030-01-01&to=2030-01-07");
     expect(r.candidates).toBe(0);
     expect(r.steps.acknowledge).toEqual({ count: 0, medianMs: null, p90Ms: null, maxMs: null, overDeadline: 0, open: 0, oldestOpenMs: null });
+    expect(r.histograms.page.length).toBeGreaterThan(0);
     expect(r.histograms.page.every((b) => b.count === 0)).toBe(true);
   });
 

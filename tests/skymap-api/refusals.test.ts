@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ApiError } from "@/lib/api/errors";
 import { readBodyBytes } from "@/lib/storage";
 import * as uiRoute from "@/app/api/v1/candidates/[id]/skymaps/route";
-import { createFeedSkymapHandler, signFeedBytes } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/feed-skymap-handler";
+import { createFeedSkymapHandler } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/feed-skymap-handler";
+import { signFeedBody } from "@/lib/feed/signature";
 import { fixtureBytes } from "../skymap/fixture-files";
 import { call, createCaller, insertCandidate, multipartBody, rowCounts, setupSkymapTest, storedFiles, type Caller, type SkymapTestEnv } from "./helpers";
 
@@ -58,7 +59,7 @@ describe("malformed sky maps get a 4xx naming the fault and leave no row or file
   it.each(malformed)("%s from the feed → %i", async (name, status, message) => {
     const res = await expectNothingKept(async () => {
       const { bytes, contentType } = await multipartBody([{ field: "file", name, bytes: fixtureBytes(`malformed/${name}`) }]);
-      const headers = { "content-type": contentType, ...signFeedBytes(SECRET, bytes, NOW_MS) };
+      const headers = { "content-type": contentType, ...signFeedBody(SECRET, bytes, NOW_MS) };
       return call(feedRoute, { params: { source: candidate.source, externalId: candidate.externalId }, body: bytes, headers });
     });
     expect(res.status).toBe(status);

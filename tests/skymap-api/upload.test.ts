@@ -10,7 +10,8 @@ import { sha256Hex, storedPath } from "@/lib/storage";
 import * as displayRoute from "@/app/api/v1/skymaps/[id]/display/route";
 import * as skymapRoute from "@/app/api/v1/skymaps/[id]/route";
 import * as uiRoute from "@/app/api/v1/candidates/[id]/skymaps/route";
-import { createFeedSkymapHandler, signFeedBytes } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/feed-skymap-handler";
+import { createFeedSkymapHandler } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/feed-skymap-handler";
+import { signFeedBody } from "@/lib/feed/signature";
 import { fixtureBytes, reference, relativeDifference, separationDeg, type ReferenceMap } from "../skymap/fixture-files";
 import { call, createCaller, insertCandidate, multipartBody, rowCounts, setupSkymapTest, storedFiles, type Caller, type SkymapTestEnv } from "./helpers";
 
@@ -37,7 +38,7 @@ async function uploadUi(candidateId: string, name: string, bytes: Uint8Array, ca
 
 async function uploadFeed(source: string, externalId: string, name: string, bytes: Uint8Array, sign = true) {
   const { bytes: body, contentType } = await multipartBody([{ field: "file", name, bytes }]);
-  const headers: Record<string, string> = { "content-type": contentType, ...(sign ? signFeedBytes(SECRET, body, NOW_MS) : {}) };
+  const headers: Record<string, string> = { "content-type": contentType, ...(sign ? signFeedBody(SECRET, body, NOW_MS) : {}) };
   return call(feedRoute, { params: { source, externalId }, body, headers });
 }
 
@@ -165,11 +166,11 @@ describe("upload by the feed (signature over the raw multipart bytes)", () => {
     expect((await uploadFeed(candidate.source, candidate.externalId, "x.fits.gz", data, false)).status).toBe(401);
 
     const { bytes: body, contentType } = await multipartBody([{ field: "file", name: "x.fits.gz", bytes: data }]);
-    const wrongKey = signFeedBytes("k".repeat(40), body, NOW_MS);
-    const stale = signFeedBytes(SECRET, body, NOW_MS - 10 * 60_000);
+    const wrongKey = signFeedBody("k".repeat(40), body, NOW_MS);
+    const stale = signFeedBody(SECRET, body, NOW_MS - 10 * 60_000);
     const tampered = body.slice();
     tampered[tampered.length - 100] = (tampered[tampered.length - 100] ?? 0) ^ 0xff;
-    const good = signFeedBytes(SECRET, body, NOW_MS);
+    const good = signFeedBody(SECRET, body, NOW_MS);
     for (const [headers, payload] of [
       [wrongKey, body],
       [stale, body],

@@ -109,7 +109,9 @@ describe("credibleRegionPoints", () => {
 
   it("puts every point near one of the two blobs", () => {
     const blobs = [{ raDeg: 123.4, decDeg: -35 }, { raDeg: 151, decDeg: -18 }];
-    for (const p of credibleRegionPoints(map, { maxPoints: 2000 })) {
+    const points = credibleRegionPoints(map, { maxPoints: 2000 });
+    expect(points.length).toBeGreaterThan(0);
+    for (const p of points) {
       const nearest = Math.min(...blobs.map((b) => separationDeg(p, b)));
       expect(nearest).toBeLessThan(30);
     }
