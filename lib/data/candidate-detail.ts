@@ -1,4 +1,4 @@
-import { asc, eq, inArray } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import { getDb } from "@/db";
 import {
   candidateRevisions,
@@ -6,7 +6,6 @@ import {
   derivedQuantities,
   followUpTasks,
   sites,
-  users,
   type SourceClass,
   type Stage,
   type TaskKind,
@@ -14,7 +13,7 @@ import {
   type TriageState,
 } from "@/db/schema";
 import { diffHeadlines, headlineFromDerived, type HeadlineChange, type RevisionHeadline } from "@/lib/feed/headline";
-import type { PersonRef } from "./candidates";
+import { loadPeople, type PersonRef } from "./candidates";
 
 export type { PersonRef } from "./candidates";
 
@@ -186,13 +185,3 @@ export async function getCandidateDetail(id: string): Promise<CandidateDetail | 
   };
 }
 
-async function loadPeople(ids: Array<string | null>): Promise<Map<string, PersonRef>> {
-  const wanted = [...new Set(ids.filter((id): id is string => Boolean(id)))];
-  if (wanted.length === 0) return new Map();
-  const db = await getDb();
-  const rows = await db
-    .select({ id: users.id, name: users.name, initials: users.initials })
-    .from(users)
-    .where(inArray(users.id, wanted));
-  return new Map(rows.map((row) => [row.id, row]));
-}

@@ -6,6 +6,7 @@
  */
 import type { InStatement } from "@libsql/client";
 import type { DerivedHeadline } from "@/lib/feed/headline";
+import { revisionHeadline } from "@/lib/feed/physics-input";
 import type { FeedCandidate } from "@/lib/validations/feed";
 
 /** The candidate for (source, externalId), if any, and the stored answer for this revision, if seen before. */
@@ -47,18 +48,7 @@ export function insertCandidateStatement(row: NewCandidateRow): InStatement {
 
 /** The small card the board needs, carried in the event so a live board draws it without another read. */
 export function cardData(payload: FeedCandidate, headline: DerivedHeadline) {
-  return {
-    source: payload.source,
-    externalId: payload.externalId,
-    revision: payload.revision,
-    stage: payload.stage,
-    eventTime: new Date(payload.eventTime).toISOString(),
-    networkSnr: payload.networkSnr,
-    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
-    detectors: payload.detectors,
-    chirpMassDetectorFrame: headline.chirpMassDetectorFrame,
-    dominantClass: headline.dominantClass,
-  };
+  return { source: payload.source, externalId: payload.externalId, revision: payload.revision, ...revisionHeadline(payload, headline) };
 }
 
 /** What the created event carries: the card, in its first column. */

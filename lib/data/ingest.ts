@@ -190,15 +190,7 @@ async function insertRevision(
 }
 
 function headlineColumns(payload: FeedCandidate, headline: DerivedHeadline) {
-  return {
-    stage: payload.stage,
-    eventTime: new Date(payload.eventTime),
-    networkSnr: payload.networkSnr,
-    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
-    detectors: payload.detectors,
-    chirpMassDetectorFrame: headline.chirpMassDetectorFrame,
-    dominantClass: headline.dominantClass,
-  };
+  return { ...revisionHeadline(payload, headline), eventTime: new Date(payload.eventTime) };
 }
 
 /**

@@ -8,7 +8,6 @@ import type { EscalationTarget } from "@/lib/validations/paging";
 import { candidateTextFor } from "./content";
 import { candidatePath } from "./links";
 import { queueNotifications } from "./outbox";
-import { readCandidateSummary } from "./plan";
 import { resolveTarget, targetRoleLabel } from "./recipients";
 
 const due = (now: Date) => and(eq(escalations.status, "pending"), lte(escalations.dueAt, now));
@@ -47,10 +46,9 @@ export async function fireDueEscalations(workerId: string, now: Date, limit = 50
           candidateId: c.id,
           data: { step: timer.step, target, userIds, escalationId: timer.id },
         });
-        const summary = await readCandidateSummary(tx, c.id);
-        if (summary && userIds.length > 0) {
+        if (userIds.length > 0) {
           const minutes = (now.getTime() - c.receivedAt.getTime()) / 60_000;
-          const text = candidateTextFor(summary, { kind: "escalation", role: targetRoleLabel[target], minutesUnacknowledged: minutes });
+          const text = candidateTextFor(c, { kind: "escalation", role: targetRoleLabel[target], minutesUnacknowledged: minutes });
           await queueNotifications(
             tx,
             { eventId: event.id, kind: "escalation", ...text, path: candidatePath(c.id), candidateId: c.id, channels: ["push", "email"], ackable: true, now },

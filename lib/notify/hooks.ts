@@ -29,12 +29,8 @@ export interface CandidateIngested {
 /** A new candidate pages the on-call primary and arms escalation; a withdrawal stops whatever is still waiting. */
 export async function onCandidateIngested(tx: Tx, info: CandidateIngested): Promise<void> {
   const now = notifyNow();
-  if (info.stage === "withdrawn") {
-    if (!info.isNewCandidate) await cancelCandidatePaging(tx, info.candidateId, "withdrawn by the feed", now);
-    else await pageNewCandidate(tx, info, now);
-    return;
-  }
   if (info.isNewCandidate) await pageNewCandidate(tx, info, now);
+  else if (info.stage === "withdrawn") await cancelCandidatePaging(tx, info.candidateId, "withdrawn by the feed", now);
 }
 
 export interface TasksCancelled {

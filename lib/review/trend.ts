@@ -1,5 +1,6 @@
 import { TZDate } from "@date-fns/tz";
-import { addWeeks, startOfWeek } from "date-fns";
+import { addWeeks } from "date-fns";
+import { weekStartMs } from "@/lib/notify/rota-week";
 import type { CandidateReview } from "./evaluate";
 import type { StepId } from "./steps";
 import { summariseSteps, type StepFigures } from "./summary";
@@ -9,11 +10,6 @@ export interface WeekPoint {
   weekStart: string;
   candidates: number;
   steps: Record<StepId, StepFigures>;
-}
-
-/** Monday 00:00 of the week holding `ms`, in `timeZone` (ISO 8601 weeks start on Monday). */
-export function weekStartMs(ms: number, timeZone: string): number {
-  return startOfWeek(new TZDate(ms, timeZone), { weekStartsOn: 1 }).getTime();
 }
 
 /** Week starts from the week holding `fromMs` up to `toMs` (at most 600: a typo'd range builds no endless axis). */

@@ -1,11 +1,11 @@
 import { execFileSync } from "node:child_process";
-import { createHmac } from "node:crypto";
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { Page } from "playwright-core";
 import { startFakePush } from "@/fakes/push/server";
 import { startFakeSmtp } from "@/fakes/smtp/server";
+import { signFeedBody } from "@/lib/feed/signature";
 import { launchBrowser } from "./browser";
 import { freePort, productionEnv, startProcess, stopProcess, waitForHttp } from "./server";
 import type { E2EContext, E2ETest } from "./types";
@@ -55,11 +55,9 @@ async function signIn(page: Page, email: string, password: string): Promise<void
 
 async function postCandidate(payload: unknown): Promise<{ status: number; body: Record<string, unknown> }> {
   const body = JSON.stringify(payload);
-  const timestamp = String(Math.floor(Date.now() / 1000));
-  const signature = createHmac("sha256", env.FEED_SIGNING_SECRET ?? "").update(`${timestamp}.${body}`).digest("hex");
   const res = await fetch(`${baseUrl}/api/v1/feed/candidates`, {
     method: "POST",
-    headers: { "content-type": "application/json", "x-feed-timestamp": timestamp, "x-feed-signature": `sha256=${signature}` },
+    headers: { "content-type": "application/json", ...signFeedBody(env.FEED_SIGNING_SECRET ?? "", body, Date.now()) },
     body,
   });
   return { status: res.status, body: (await res.json()) as Record<string, unknown> };

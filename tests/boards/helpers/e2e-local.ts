@@ -4,11 +4,11 @@
  *   APP_URL=http://localhost:3107 tsx tests/boards/helpers/e2e-local.ts
  * Reads FEED_SIGNING_SECRET from .env.local like the server does.
  */
-import { createHmac } from "node:crypto";
 import { mkdirSync, readFileSync } from "node:fs";
 import type { Page } from "playwright-core";
 import boardsE2E from "../../e2e/boards.e2e";
 import { launchBrowser } from "../../e2e/browser";
+import { signFeedBody } from "@/lib/feed/signature";
 import type { E2EContext } from "../../e2e/types";
 
 const baseUrl = process.env.APP_URL ?? "http://localhost:3107";
@@ -29,11 +29,9 @@ const ctx = {
   },
   async postCandidate(payload: unknown) {
     const body = JSON.stringify(payload);
-    const timestamp = String(Math.floor(Date.now() / 1000));
-    const signature = createHmac("sha256", secret).update(`${timestamp}.${body}`).digest("hex");
     const res = await fetch(`${baseUrl}/api/v1/feed/candidates`, {
       method: "POST",
-      headers: { "content-type": "application/json", "x-feed-timestamp": timestamp, "x-feed-signature": `sha256=${signature}` },
+      headers: { "content-type": "application/json", ...signFeedBody(secret, body, Date.now()) },
       body,
     });
     return { status: res.status, body: (await res.json()) as Record<string, unknown> };

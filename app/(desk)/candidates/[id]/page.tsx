@@ -1,6 +1,7 @@
 import { Ban } from "lucide-react";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { cache } from "react";
 import { AuditLog } from "@/components/candidate/audit-log";
 import { CandidateLiveRefresh } from "@/components/candidate/candidate-live-refresh";
 import { CandidateTriagePanel } from "@/components/candidate/candidate-triage-panel";
@@ -25,15 +26,18 @@ import type { Derived } from "@/lib/physics/derived-types";
 
 export const dynamic = "force-dynamic";
 
+// The title and the page read the same candidate: once per request.
+const readDetail = cache(getCandidateDetail);
+
 export async function generateMetadata({ params }: { params: Promise<{ id: string }> }) {
-  const detail = await getCandidateDetail((await params).id);
+  const detail = await readDetail((await params).id);
   return { title: detail ? `Candidate ${detail.externalId}` : "Candidate not found" };
 }
 
 export default async function CandidatePage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser();
   const { id } = await params;
-  const detail = await getCandidateDetail(id);
+  const detail = await readDetail(id);
   if (!detail) notFound();
   const [audit, notes, sites] = await Promise.all([listCandidateAudit(id), listNotes(id), listSiteOptions()]);
   const people = await loadPeople(audit.map((e) => (typeof e.data?.ownerId === "string" ? e.data.ownerId : null)));
