@@ -35,13 +35,20 @@ export interface TaskCard {
 }
 
 /** The follow-up board's cards in one query (site, candidate and claimer joined), urgent first. */
-export async function listTasks(query: Partial<TaskListQuery>, viewer: SessionUser): Promise<TaskCard[]> {
+export async function listTasks(
+  query: Partial<TaskListQuery> & {
+    /** exactly this candidate (the candidate's own task list), unlike `candidate`, which also matches id fragments */
+    candidateId?: string;
+  },
+  viewer: SessionUser,
+): Promise<TaskCard[]> {
   const db = await getDb();
   const where: SQL[] = [];
   if (query.site) where.push(or(eq(sites.id, query.site), eq(sites.code, query.site)) as SQL);
   if (query.kind) where.push(eq(followUpTasks.kind, query.kind));
   if (query.state) where.push(eq(followUpTasks.state, query.state));
   if (query.mine) where.push(eq(followUpTasks.claimedById, viewer.id));
+  if (query.candidateId !== undefined) where.push(eq(followUpTasks.candidateId, query.candidateId));
   if (query.candidate) {
     where.push(
       or(eq(candidates.id, query.candidate), sql`instr(lower(${candidates.externalId}), lower(${query.candidate})) > 0`) as SQL,

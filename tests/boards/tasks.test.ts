@@ -51,6 +51,9 @@ describe("planning follow-up", () => {
     expect(tasks[1]?.windowStart).toBeNull();
     const listed = await callRoute(candidateTasksGet, { caller: c.observer, params: { id } });
     expect(Object.keys(listed.json)).toHaveLength(2);
+    // A candidate's own list is that candidate's only: "T" is in every test candidate's name, yet names no candidate.
+    const fragment = await callRoute(candidateTasksGet, { caller: c.observer, params: { id: "T" } });
+    expect(fragment.json).toEqual([]);
   });
 
   it("refuses a candidate that is not in Pursue, a backwards window and an unknown site", async () => {

@@ -5,7 +5,7 @@ import { createTasks, listTasks } from "@/lib/data/tasks";
 import { createTasksBodySchema } from "@/lib/validations/tasks";
 
 /** The candidate's follow-up tasks. */
-export const GET = handler({ roles: can.read }, async ({ user, params }) => listTasks({ candidate: params.id ?? "" }, user));
+export const GET = handler({ roles: can.read }, async ({ user, params }) => listTasks({ candidateId: params.id ?? "" }, user));
 
 /** Plans follow-up: creates one or several tasks for a candidate in Pursue. */
 export const POST = handler({ roles: can.planFollowUp, body: createTasksBodySchema }, async ({ user, body, params }) => {
