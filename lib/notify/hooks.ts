@@ -49,7 +49,7 @@ export async function onTasksCancelled(tx: Tx, info: TasksCancelled): Promise<vo
   const candidate = await readCandidateSummary(tx, info.candidateId);
   const name = candidate?.externalId ?? "a candidate";
   const text = { title: `Follow-up of ${name} cancelled`, body: `Your task was cancelled: ${info.reason}. No observation is needed.` };
-  await queueForEach(tx, info.ownerIds, {
+  const spec: TaskSpec = {
     eventId: info.eventId,
     kind: "task-cancelled",
     ...text,
@@ -57,7 +57,8 @@ export async function onTasksCancelled(tx: Tx, info: TasksCancelled): Promise<vo
     candidateId: info.candidateId,
     taskId: info.taskIds.length === 1 ? (info.taskIds[0] ?? null) : null,
     now,
-  });
+  };
+  await queueTaskMessages(tx, info.ownerIds.map((userId) => ({ userId, spec })));
 }
 
 export interface TasksCreated {
@@ -85,18 +86,22 @@ export async function onTasksCreated(tx: Tx, info: TasksCreated): Promise<void> 
   }
   if (perUser.size === 0) return;
   const candidate = await readCandidateSummary(tx, info.candidateId);
-  for (const [userId, items] of perUser) {
-    await queueForEach(tx, [userId], {
-      eventId: info.eventId,
-      kind: "task-created",
-      title: `Follow-up wanted for ${candidate?.externalId ?? "a candidate"}`,
-      body: `New task${items.length > 1 ? "s" : ""}: ${items.join(", ")}. Claim it on the follow-up board.`,
-      path: "/follow-up",
-      candidateId: info.candidateId,
-      taskId: tasks.length === 1 ? (tasks[0]?.id ?? null) : null,
-      now,
-    });
-  }
+  await queueTaskMessages(
+    tx,
+    [...perUser].map(([userId, items]) => ({
+      userId,
+      spec: {
+        eventId: info.eventId,
+        kind: "task-created",
+        title: `Follow-up wanted for ${candidate?.externalId ?? "a candidate"}`,
+        body: `New task${items.length > 1 ? "s" : ""}: ${items.join(", ")}. Claim it on the follow-up board.`,
+        path: "/follow-up",
+        candidateId: info.candidateId,
+        taskId: tasks.length === 1 ? (tasks[0]?.id ?? null) : null,
+        now,
+      },
+    })),
+  );
   await appendEvent(tx, {
     at: now,
     kind: eventKinds.pageQueued,
@@ -107,10 +112,10 @@ export async function onTasksCreated(tx: Tx, info: TasksCreated): Promise<void> 
 
 type TaskSpec = Omit<Parameters<typeof queueNotifications>[1], "channels" | "ackable" | "onCall">;
 
-/** Task messages: in-app always; push and e-mail as each person's task switches say. */
-async function queueForEach(tx: Tx, userIds: string[], spec: TaskSpec): Promise<void> {
-  const prefs = await readPreferencesMany(tx, userIds);
-  for (const userId of userIds) {
+/** Task messages: in-app always; push and e-mail as each person's task switches say (read once for all). */
+async function queueTaskMessages(tx: Tx, messages: Array<{ userId: string; spec: TaskSpec }>): Promise<void> {
+  const prefs = await readPreferencesMany(tx, messages.map((m) => m.userId));
+  for (const { userId, spec } of messages) {
     const p = prefs.get(userId);
     const channels = (["push", "email"] as const).filter((c) => p?.taskChannels[c] !== false);
     await queueNotifications(tx, { ...spec, channels }, [userId]);
