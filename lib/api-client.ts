@@ -16,6 +16,11 @@ export class ApiClientError extends Error {
   }
 }
 
+/** What to show a person when a request failed: the route's own message, else the error as text. */
+export function errorText(error: unknown): string {
+  return error instanceof ApiClientError ? error.body.error : String(error);
+}
+
 /** fetch for the browser side: JSON in and out, typed errors for TanStack Query's onError. */
 export async function apiFetch<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
   const { json, headers, ...rest } = init;

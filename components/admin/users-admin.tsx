@@ -18,7 +18,7 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Select } from "@/components/ui/field";
 import { roles, type Role } from "@/db/schema/roles";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 import { roleLabels, type SessionUser } from "@/lib/auth/roles";
 import type { PublicUser } from "@/lib/data/users";
 import type { CreateUserInput, UpdateUserInput } from "@/lib/validations/users";
@@ -26,10 +26,6 @@ import { CreateUserForm } from "./user-form";
 
 type Row = Omit<PublicUser, "createdAt" | "disabledAt"> & { createdAt: string; disabledAt: string | null };
 const column = createColumnHelper<Row>();
-
-function errorText(error: unknown): string {
-  return error instanceof ApiClientError ? error.body.error : String(error);
-}
 
 export function UsersAdmin({ actor }: { actor: SessionUser }) {
   const queryClient = useQueryClient();

@@ -9,6 +9,7 @@ import { queryKeys } from "@/components/live/query-keys";
 import type { TaskState } from "@/db/schema/tasks";
 import { taskStateIds as taskStates } from "@/lib/triage/states";
 import { apiFetch } from "@/lib/api-client";
+import type { Role } from "@/lib/auth/roles";
 import type { TaskCard } from "@/lib/data/tasks";
 import { taskKindLabels, taskStateLabels } from "@/lib/triage/task-states";
 import { boardAnnouncements } from "./announcements";
@@ -27,7 +28,7 @@ interface Viewer {
   id: string;
   name: string;
   initials: string;
-  role: string;
+  role: Role;
   timeZone: string;
 }
 

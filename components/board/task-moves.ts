@@ -1,10 +1,11 @@
 import type { TaskState } from "@/db/schema/tasks";
+import { can, hasRole, type Role } from "@/lib/auth/roles";
 import type { TaskCard } from "@/lib/data/tasks";
 import type { TaskAction } from "./task-card";
 
 interface Viewer {
   id: string;
-  role: string;
+  role: Role;
 }
 
 /**
@@ -12,8 +13,8 @@ interface Viewer {
  * tasks, only the claimer or a coordinator moves a claimed task, shifters and coordinators cancel). The server decides.
  */
 export function taskActionsFor(task: TaskCard, viewer: Viewer): TaskAction[] {
-  const claims = viewer.role === "observer" || viewer.role === "coordinator";
-  const plans = viewer.role === "shifter" || viewer.role === "coordinator";
+  const claims = hasRole(viewer, can.claimTask);
+  const plans = hasRole(viewer, can.planFollowUp);
   const holder = viewer.role === "coordinator" || task.claimedBy?.id === viewer.id;
   const actions: TaskAction[] = [];
   const add = (to: TaskState, label: string) => actions.push({ to, label });

@@ -22,6 +22,7 @@ import { queryKeys } from "@/components/live/query-keys";
 import type { Stage, TriageState } from "@/db/schema/candidates";
 import { triageStateIds as triageStates } from "@/lib/triage/states";
 import { apiFetch } from "@/lib/api-client";
+import { can, hasRole, type Role } from "@/lib/auth/roles";
 import type { BoardCard, BoardData } from "@/lib/data/candidates";
 import type { Roster, RosterPerson } from "@/lib/data/triage";
 import { formatFalseAlarmRate } from "@/lib/format/far";
@@ -52,7 +53,7 @@ function useHydrated(): boolean {
 
 interface Viewer {
   id: string;
-  role: string;
+  role: Role;
   timeZone: string;
 }
 
@@ -73,7 +74,7 @@ export function TriageBoard({
   viewer: Viewer;
 }) {
   const router = useRouter();
-  const canTriage = viewer.role === "shifter" || viewer.role === "coordinator";
+  const canTriage = hasRole(viewer, can.triage);
   const { data: board } = useQuery({ queryKey: queryKeys.board, queryFn: () => apiFetch<BoardData>("/api/v1/board"), initialData: initialBoard });
   const { data: roster } = useQuery({ queryKey: queryKeys.roster, queryFn: () => apiFetch<Roster>("/api/v1/roster"), initialData: initialRoster });
   const { move, assign } = useTriageMutations();

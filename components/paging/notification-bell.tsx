@@ -1,16 +1,13 @@
 "use client";
 
-import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { Bell, BellRing } from "lucide-react";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useRef, useState } from "react";
 import { toast } from "sonner";
 import { cn } from "@/components/ui/cn";
-import { apiFetch } from "@/lib/api-client";
-import { pagingKeys } from "./query-keys";
 import type { MyNotification } from "./types";
-import { useMyNotifications } from "./use-notifications";
+import { useMarkNotificationsRead, useMyNotifications } from "./use-notifications";
 import { ZonedTime } from "./zoned-time";
 
 const pageKinds = new Set(["page", "escalation"]);
@@ -47,14 +44,10 @@ function useArrivalToasts(items: MyNotification[] | undefined, open: (n: MyNotif
 /** The header bell: unread count, the latest messages, toasts for new ones. Mount it in the header status slot. */
 export function NotificationBell() {
   const { data } = useMyNotifications(8);
-  const queryClient = useQueryClient();
   const router = useRouter();
   const [openPanel, setOpenPanel] = useState(false);
   const wrapper = useRef<HTMLDivElement>(null);
-  const markRead = useMutation({
-    mutationFn: (body: { ids: string[] } | { all: true }) => apiFetch<{ unread: number }>("/api/v1/notifications/read", { method: "POST", json: body }),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: pagingKeys.notifications }),
-  });
+  const markRead = useMarkNotificationsRead();
   const { mutate: mark } = markRead;
   const open = useCallback(
     (n: MyNotification) => {

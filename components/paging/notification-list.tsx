@@ -1,6 +1,6 @@
 "use client";
 
-import { useInfiniteQuery, useMutation, useQueryClient } from "@tanstack/react-query";
+import { useInfiniteQuery } from "@tanstack/react-query";
 import { Bell, CheckCheck, ExternalLink } from "lucide-react";
 import { useState } from "react";
 import { Badge } from "@/components/ui/badge";
@@ -11,7 +11,7 @@ import { apiFetch } from "@/lib/api-client";
 import { DeliveryChips } from "./delivery-chips";
 import { pagingKeys } from "./query-keys";
 import type { NotificationListResponse } from "./types";
-import { useMyNotifications } from "./use-notifications";
+import { useMarkNotificationsRead, useMyNotifications } from "./use-notifications";
 import { ZonedTime } from "./zoned-time";
 
 const kindLabel: Record<string, { text: string; tone: "alarm" | "warn" | "accent" | "neutral" }> = {
@@ -28,7 +28,6 @@ const PAGE_SIZE = 30;
 /** Everything the person was paged about, newest first, with what push and e-mail did with each. */
 export function NotificationList({ timeZone }: { timeZone: string }) {
   const [unreadOnly, setUnreadOnly] = useState(false);
-  const queryClient = useQueryClient();
   // The hook keeps the list fresh from live events and polling; the infinite query below reads the pages.
   useMyNotifications(8);
   const list = useInfiniteQuery({
@@ -39,10 +38,7 @@ export function NotificationList({ timeZone }: { timeZone: string }) {
     getNextPageParam: (last) => (last.items.length < PAGE_SIZE ? undefined : Date.parse(last.items[last.items.length - 1]?.createdAt ?? "")),
     refetchInterval: 10_000,
   });
-  const markRead = useMutation({
-    mutationFn: (body: { ids: string[] } | { all: true }) => apiFetch("/api/v1/notifications/read", { method: "POST", json: body }),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: pagingKeys.notifications }),
-  });
+  const markRead = useMarkNotificationsRead();
   const items = list.data?.pages.flatMap((p) => p.items) ?? [];
   const unread = list.data?.pages[0]?.unread ?? 0;
 

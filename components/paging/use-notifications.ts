@@ -1,6 +1,6 @@
 "use client";
 
-import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useLiveEvents } from "@/components/live/live-store";
 import { apiFetch } from "@/lib/api-client";
 import { notificationEventKinds, pagingKeys } from "./query-keys";
@@ -29,4 +29,13 @@ export function useMyNotifications(limit = 20) {
     void queryClient.invalidateQueries({ queryKey: pagingKeys.notifications });
   });
   return query;
+}
+
+/** Marks some or all of the person's notifications read, then refreshes every notification list. */
+export function useMarkNotificationsRead() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { ids: string[] } | { all: true }) => apiFetch<{ unread: number }>("/api/v1/notifications/read", { method: "POST", json: body }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: pagingKeys.notifications }),
+  });
 }

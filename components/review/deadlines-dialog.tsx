@@ -10,7 +10,7 @@ import { toast } from "sonner";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Field, Input } from "@/components/ui/field";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 import { deadlinesSchema, type DeadlinesInput } from "@/lib/validations/review";
 
 const fields: Array<{ key: keyof DeadlinesInput; label: string; hint: string }> = [
@@ -37,7 +37,7 @@ export function DeadlinesDialog({ initial }: { initial: DeadlinesInput }) {
       setOpen(false);
       router.refresh();
     },
-    onError: (e) => toast.error(e instanceof ApiClientError ? e.body.error : String(e)),
+    onError: (e) => toast.error(errorText(e)),
   });
   return (
     <>

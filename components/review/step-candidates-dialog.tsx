@@ -5,7 +5,7 @@ import { AlarmClock, Hourglass } from "lucide-react";
 import Link from "next/link";
 import { Badge } from "@/components/ui/badge";
 import { Dialog } from "@/components/ui/dialog";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 import { formatInZone, isoUtc } from "@/lib/format/time";
 import { formatDurationMs } from "@/lib/review/format";
 import type { StepList } from "@/lib/review/list";
@@ -57,7 +57,7 @@ export function StepCandidatesDialog({
       {query.isLoading ? <p className="text-sm text-muted">Loading…</p> : null}
       {query.isError ? (
         <p role="alert" className="text-sm text-alarm">
-          Could not load: {query.error instanceof ApiClientError ? query.error.body.error : String(query.error)}
+          Could not load: {errorText(query.error)}
         </p>
       ) : null}
       {list ? (

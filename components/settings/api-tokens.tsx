@@ -9,7 +9,7 @@ import { useForm } from "react-hook-form";
 import { toast } from "sonner";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 import { createTokenSchema } from "@/lib/validations/users";
 
 interface TokenRow {
@@ -33,12 +33,12 @@ export function ApiTokens() {
       form.reset();
       void queryClient.invalidateQueries({ queryKey: ["me", "tokens"] });
     },
-    onError: (e) => toast.error(e instanceof ApiClientError ? e.body.error : String(e)),
+    onError: (e) => toast.error(errorText(e)),
   });
   const revoke = useMutation({
     mutationFn: (id: string) => apiFetch(`/api/v1/me/tokens/${id}`, { method: "DELETE" }),
     onSuccess: () => void queryClient.invalidateQueries({ queryKey: ["me", "tokens"] }),
-    onError: (e) => toast.error(e instanceof ApiClientError ? e.body.error : String(e)),
+    onError: (e) => toast.error(errorText(e)),
   });
 
   return (

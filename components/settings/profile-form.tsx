@@ -7,7 +7,7 @@ import { useForm } from "react-hook-form";
 import { toast } from "sonner";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 import { updateProfileSchema, type UpdateProfileInput } from "@/lib/validations/users";
 
 export function ProfileForm({ name, timeZone }: { name: string; timeZone: string }) {
@@ -25,7 +25,7 @@ export function ProfileForm({ name, timeZone }: { name: string; timeZone: string
       form.resetField("newPassword");
       router.refresh();
     },
-    onError: (e) => toast.error(e instanceof ApiClientError ? e.body.error : String(e)),
+    onError: (e) => toast.error(errorText(e)),
   });
   return (
     <form onSubmit={form.handleSubmit((v) => save.mutate(v))} className="grid gap-3 sm:grid-cols-2" noValidate>

@@ -11,14 +11,13 @@ import { Avatar } from "@/components/ui/avatar";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { EmptyState } from "@/components/ui/empty-state";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 import type { SiteObserver, SiteRecord } from "@/lib/data/sites";
 import type { SiteInput } from "@/lib/validations/sites";
 import { SiteForm } from "./site-form";
 import { TonightPanel } from "./tonight-panel";
 
 const column = createColumnHelper<SiteRecord>();
-const errorText = (e: unknown) => (e instanceof ApiClientError ? e.body.error : String(e));
 const signed = (v: number, pos: string, neg: string) => `${Math.abs(v).toFixed(2)}° ${v >= 0 ? pos : neg}`;
 
 /** The sites table (forms for coordinators, read-only for others) and tonight's visibility per site. */

@@ -4,7 +4,7 @@ import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
-import { apiFetch, ApiClientError } from "@/lib/api-client";
+import { apiFetch, errorText } from "@/lib/api-client";
 
 /** Probability inside a cone, answered at the map's native resolution by the server. */
 export function ConeQuery({ skymapId, initial }: { skymapId: string; initial: { raDeg: number; decDeg: number } }) {
@@ -41,7 +41,7 @@ export function ConeQuery({ skymapId, initial }: { skymapId: string; initial: { 
       <output className="min-w-24 text-sm" aria-live="polite">
         {query.data ? <span className="font-mono">{(query.data.probability * 100).toFixed(query.data.probability < 0.1 ? 2 : 1)} %</span> : null}
         {query.error ? (
-          <span className="text-alarm">{query.error instanceof ApiClientError ? query.error.body.error : String(query.error)}</span>
+          <span className="text-alarm">{errorText(query.error)}</span>
         ) : null}
       </output>
     </form>

@@ -1,5 +1,6 @@
 import { TriageBoard } from "@/components/board/triage-board";
 import { PageHeader } from "@/components/ui/page-header";
+import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { getBoard } from "@/lib/data/candidates";
 import { listSiteOptions } from "@/lib/data/tasks";
@@ -11,7 +12,7 @@ export const dynamic = "force-dynamic";
 export default async function TriagePage() {
   const user = await requirePageUser();
   const [board, roster, sites] = await Promise.all([getBoard(), getRoster(), listSiteOptions()]);
-  const readOnly = user.role !== "shifter" && user.role !== "coordinator";
+  const readOnly = !hasRole(user, can.triage);
   return (
     <>
       <PageHeader
