@@ -3,7 +3,9 @@ import { z } from "zod";
 import { getDb } from "@/db";
 import { settings } from "@/db/schema";
 import { escalationPolicySchema } from "@/lib/validations/paging";
-import type { Tx } from "./events";
+import type { SessionUser } from "@/lib/auth/roles";
+import { eventKinds } from "@/lib/events/kinds";
+import { appendEvent, type Tx } from "./events";
 
 /**
  * Coordinator settings, each a zod schema with defaults, so a missing or old row still reads as a whole value.
@@ -58,4 +60,19 @@ export async function putSetting<K extends SettingKey>(
     .insert(settings)
     .values({ key, value, updatedAt: now, updatedById: actorId })
     .onConflictDoUpdate({ target: settings.key, set: { value, updatedAt: now, updatedById: actorId } });
+}
+
+/** Replaces a setting with its audit event in one transaction, and answers the stored value. */
+export async function saveSetting<K extends SettingKey>(
+  key: K,
+  value: SettingValue<K>,
+  actor: Pick<SessionUser, "id">,
+  now = new Date(),
+): Promise<SettingValue<K>> {
+  const db = await getDb();
+  await db.transaction(async (tx) => {
+    await putSetting(key, value, actor.id, tx);
+    await appendEvent(tx, { at: now, kind: eventKinds.settingsChanged, actorId: actor.id, data: { key } });
+  });
+  return getSetting(key);
 }

@@ -1,9 +1,6 @@
-import { getDb } from "@/db";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { appendEvent } from "@/lib/data/events";
-import { getSetting, putSetting } from "@/lib/data/settings";
-import { eventKinds } from "@/lib/events/kinds";
+import { getSetting, saveSetting } from "@/lib/data/settings";
 import { deadlinesSchema } from "@/lib/validations/review";
 
 /** GET /api/v1/settings/deadlines — every step deadline and the board's timers, in minutes. */
@@ -13,11 +10,6 @@ export const GET = handler({ roles: can.read }, async () => getSetting("deadline
  * PUT /api/v1/settings/deadlines — coordinators and admins replace every deadline (all fields required). Stored
  * events are untouched; the review re-evaluates with the new values on its next read.
  */
-export const PUT = handler({ roles: can.manageSettings, body: deadlinesSchema }, async ({ user, body }) => {
-  const db = await getDb();
-  await db.transaction(async (tx) => {
-    await putSetting("deadlines", body, user.id, tx);
-    await appendEvent(tx, { kind: eventKinds.settingsChanged, actorId: user.id, data: { key: "deadlines" } });
-  });
-  return getSetting("deadlines");
-});
+export const PUT = handler({ roles: can.manageSettings, body: deadlinesSchema }, async ({ user, body }) =>
+  saveSetting("deadlines", body, user),
+);
