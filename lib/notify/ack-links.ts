@@ -40,12 +40,11 @@ export function parseAckToken(token: string): ParsedAckToken | null {
   return { id: m[1], expiresAtMs: parseInt(m[2], 36), signature: Buffer.from(m[3], "base64url") };
 }
 
-/** Stores the single-use row and returns the signed token, in the caller's transaction. */
-export async function createAckToken(
-  tx: Tx,
+/** A new signed token and the single-use row the caller stores for it (in the transaction that sends it). */
+export function mintAckToken(
   input: { candidateId: string; userId: string; now: Date },
   secret: string,
-): Promise<{ token: string; expiresAt: Date }> {
+): { token: string; expiresAt: Date; row: typeof ackTokens.$inferInsert } {
   const claims: AckClaims = {
     id: randomUUID(),
     candidateId: input.candidateId,
@@ -53,8 +52,8 @@ export async function createAckToken(
     expiresAtMs: input.now.getTime() + ackLinkLifetimeMs,
   };
   const expiresAt = new Date(claims.expiresAtMs);
-  await tx.insert(ackTokens).values({ id: claims.id, candidateId: claims.candidateId, userId: claims.userId, expiresAt, createdAt: input.now });
-  return { token: signAckToken(claims, secret), expiresAt };
+  const row = { id: claims.id, candidateId: claims.candidateId, userId: claims.userId, expiresAt, createdAt: input.now };
+  return { token: signAckToken(claims, secret), expiresAt, row };
 }
 
 export type AckTokenCheck =

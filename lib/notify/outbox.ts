@@ -1,7 +1,7 @@
 import { and, eq, inArray } from "drizzle-orm";
-import { escalations, notifications, type Channel, type NewNotification } from "@/db/schema";
+import { ackTokens, escalations, notifications, type Channel, type NewNotification } from "@/db/schema";
 import type { Tx } from "@/lib/data/events";
-import { ackLinkSecret, createAckToken } from "./ack-links";
+import { ackLinkSecret, mintAckToken } from "./ack-links";
 import { ackConfirmPath, ackPagePath, appBaseUrl } from "./links";
 
 export type NotificationKind = "page" | "escalation" | "notice" | "task-created" | "task-cancelled" | "test";
@@ -48,6 +48,7 @@ export async function queueNotifications(tx: Tx, spec: QueueSpec, userIds: reado
   const base = appBaseUrl();
   const tag = spec.candidateId ? `candidate-${spec.candidateId}` : `${spec.kind}-${spec.eventId}`;
   const rows: NewNotification[] = [];
+  const tokenRows: Array<typeof ackTokens.$inferInsert> = [];
   for (const userId of new Set(userIds)) {
     const common = {
       eventId: spec.eventId,
@@ -65,7 +66,8 @@ export async function queueNotifications(tx: Tx, spec: QueueSpec, userIds: reado
     for (const channel of spec.channels) {
       const payload: NotificationPayload = { tag, ...(spec.onCall ? { onCall: true } : {}) };
       if (secret && spec.candidateId) {
-        const { token, expiresAt } = await createAckToken(tx, { candidateId: spec.candidateId, userId, now: spec.now }, secret);
+        const { token, expiresAt, row } = mintAckToken({ candidateId: spec.candidateId, userId, now: spec.now }, secret);
+        tokenRows.push(row);
         payload.ackPageUrl = base + ackPagePath(token);
         payload.ackUrl = base + ackConfirmPath(token);
         payload.ackExpiresAt = expiresAt.toISOString();
@@ -74,6 +76,8 @@ export async function queueNotifications(tx: Tx, spec: QueueSpec, userIds: reado
     }
   }
   if (rows.length === 0) return 0;
+  // One statement for every recipient's tokens, before the rows that link to them.
+  if (tokenRows.length > 0) await tx.insert(ackTokens).values(tokenRows);
   const inserted = await tx.insert(notifications).values(rows).onConflictDoNothing({ target: notifications.dedupeKey }).returning({ id: notifications.id });
   return inserted.length;
 }
