@@ -101,7 +101,7 @@ async function writeOne(tx: GroupWrite, pending: PendingRevision): Promise<Inges
   const stored = storedAnswerFrom(found, pending.payload);
   if (stored) return stored;
   const derived = JSON.parse(pending.derived.json) as Record<string, unknown>;
-  return writeRevision(tx.orm, pending.payload, derived, pending.derived, pending.receivedAt);
+  return writeRevision(tx.orm, String(found.id), pending.payload, derived, pending.derived, pending.receivedAt);
 }
 
 type LookupRow = Record<string, unknown>;
@@ -129,16 +129,13 @@ async function readStoredAnswer(
 /** A revision of a candidate already stored: a new current revision, or (lower than the current one) history only. */
 async function writeRevision(
   tx: Tx,
+  candidateId: string,
   payload: FeedCandidate,
   derived: Record<string, unknown>,
   forFeed: DerivedForFeed,
   at: Date,
 ): Promise<IngestResult> {
-  const [existing] = await tx
-    .select()
-    .from(candidates)
-    .where(and(eq(candidates.source, payload.source), eq(candidates.externalId, payload.externalId)))
-    .limit(1);
+  const [existing] = await tx.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
   if (!existing) throw new Error("the candidate disappeared inside the write transaction");
   const { headline } = forFeed;
   const outcome: IngestOutcome = payload.revision > existing.currentRevision ? "revised" : "stale";

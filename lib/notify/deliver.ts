@@ -9,7 +9,7 @@ import { topicFor, type PushSender } from "./channels/push";
 import type { Outcome } from "./claim";
 import { isWithinLocalWindow } from "./local-time";
 import type { NotificationPayload } from "./outbox";
-import { readPreferences } from "./preferences";
+import { defaultPreferences, readPreferencesMany } from "./preferences";
 
 export interface DeliveryContext {
   push: PushSender | null;
@@ -59,7 +59,9 @@ export async function deliver(row: Notification, ctx: DeliveryContext): Promise<
   // The on-call primary cannot mute pages during their shift.
   const onCall = pageKinds.has(row.kind) && (payload.onCall === true || (await onCallPrimaryUntil(db, user.id, ctx.now)) !== null);
   if (!onCall) {
-    const muted = muteReason(row, await readPreferences(db, user.id), user.timeZone, ctx.now);
+    // Channels and quiet hours only: the batch reader skips the default task sites this does not need.
+    const preferences = (await readPreferencesMany(db, [user.id])).get(user.id) ?? defaultPreferences();
+    const muted = muteReason(row, preferences, user.timeZone, ctx.now);
     if (muted) return { status: "skipped", reason: muted };
   }
   return row.channel === "push" ? deliverPush(row, payload, ctx) : deliverEmail(row, payload, user, ctx);
