@@ -4,6 +4,7 @@ import { getDb } from "@/db";
 import { shifts, users, type Shift } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
+import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import type { ShiftInput } from "@/lib/validations/rota";
 import { appendEvent, type Tx } from "./events";
@@ -99,12 +100,8 @@ async function checkPeople(tx: Tx, input: ShiftInput): Promise<void> {
   }
 }
 
-function requireRotaManager(actor: SessionUser): void {
-  if (!hasRole(actor, can.manageRota)) throw new ApiError(403, `your role (${actor.role}) may not change the rota`);
-}
-
 export async function createShift(actor: SessionUser, input: ShiftInput, now = new Date()): Promise<Shift> {
-  requireRotaManager(actor);
+  requireRole(actor, can.manageRota, "change the rota");
   const db = await getDb();
   return db.transaction(async (tx) => {
       await checkPeople(tx, input);
@@ -116,7 +113,7 @@ export async function createShift(actor: SessionUser, input: ShiftInput, now = n
 }
 
 export async function updateShift(actor: SessionUser, id: string, input: ShiftInput, now = new Date()): Promise<Shift> {
-  requireRotaManager(actor);
+  requireRole(actor, can.manageRota, "change the rota");
   const db = await getDb();
   return db.transaction(async (tx) => {
       await checkPeople(tx, input);
@@ -129,7 +126,7 @@ export async function updateShift(actor: SessionUser, id: string, input: ShiftIn
 }
 
 export async function deleteShift(actor: SessionUser, id: string, now = new Date()): Promise<void> {
-  requireRotaManager(actor);
+  requireRole(actor, can.manageRota, "change the rota");
   const db = await getDb();
   await db.transaction(async (tx) => {
       const [row] = await tx.delete(shifts).where(eq(shifts.id, id)).returning({ id: shifts.id });

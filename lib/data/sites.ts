@@ -2,7 +2,8 @@ import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
 import { getDb } from "@/db";
 import { siteObservers, sites, users, type Site } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
+import { can, type SessionUser } from "@/lib/auth/roles";
+import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import type { SiteInput } from "@/lib/validations/sites";
 import { appendEvent, type Tx } from "./events";
@@ -76,12 +77,6 @@ export async function listObserverOptions(): Promise<SiteObserver[]> {
     .orderBy(asc(users.name));
 }
 
-function requireManager(actor: SessionUser): void {
-  if (!hasRole(actor, can.manageSites)) {
-    throw new ApiError(403, `your role (${actor.role}) may not manage sites; allowed: ${can.manageSites.join(", ")}`);
-  }
-}
-
 async function checkCodeFree(tx: Tx, code: string, exceptId?: string): Promise<void> {
   const where = exceptId ? and(eq(sites.code, code), ne(sites.id, exceptId)) : eq(sites.code, code);
   const [taken] = await tx.select({ id: sites.id }).from(sites).where(where).limit(1);
@@ -102,7 +97,7 @@ async function setObservers(tx: Tx, siteId: string, observerIds: string[]): Prom
 }
 
 export async function createSite(actor: SessionUser, input: SiteInput, now: Date = new Date()): Promise<SiteRecord> {
-  requireManager(actor);
+  requireRole(actor, can.manageSites, "manage sites");
   const db = await getDb();
   const { observerIds, ...fields } = input;
   const id = await db.transaction(async (tx) => {
@@ -117,7 +112,7 @@ export async function createSite(actor: SessionUser, input: SiteInput, now: Date
 }
 
 export async function updateSite(actor: SessionUser, id: string, input: SiteInput, now: Date = new Date()): Promise<SiteRecord> {
-  requireManager(actor);
+  requireRole(actor, can.manageSites, "manage sites");
   const db = await getDb();
   const { observerIds, ...fields } = input;
   await db.transaction(async (tx) => {
@@ -133,7 +128,7 @@ export async function updateSite(actor: SessionUser, id: string, input: SiteInpu
 
 /** Deletes a site; its tasks keep existing without a site (the foreign key sets null). */
 export async function deleteSite(actor: SessionUser, id: string, now: Date = new Date()): Promise<void> {
-  requireManager(actor);
+  requireRole(actor, can.manageSites, "manage sites");
   const db = await getDb();
   await db.transaction(async (tx) => {
     const [removed] = await tx.delete(sites).where(eq(sites.id, id)).returning({ code: sites.code });

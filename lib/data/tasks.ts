@@ -10,7 +10,8 @@ import {
   type TaskState,
 } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
+import { can, type SessionUser } from "@/lib/auth/roles";
+import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import { onTasksCancelled, onTasksCreated } from "@/lib/notify/hooks";
 import { allowedTaskMoves, canMoveTask, taskStateLabels } from "@/lib/triage/task-states";
@@ -301,10 +302,6 @@ async function readTaskForMove(tx: Tx, taskId: string, to: TaskState, expectedVe
     });
   }
   return task;
-}
-
-function requireRole(actor: SessionUser, roles: readonly SessionUser["role"][], what: string): void {
-  if (!hasRole(actor, roles)) throw new ApiError(403, `your role (${actor.role}) may not ${what}; allowed: ${roles.join(", ")}`);
 }
 
 function requireClaimerOrCoordinator(actor: SessionUser, task: FollowUpTask): void {

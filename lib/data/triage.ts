@@ -4,6 +4,7 @@ import { alias } from "drizzle-orm/sqlite-core";
 import { candidates, events, shifts, users, type AppEvent, type Candidate, type Role, type TriageState } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
+import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import { onCandidateAcknowledged } from "@/lib/notify/hooks";
 import {
@@ -49,9 +50,7 @@ export interface LastChange {
  */
 export async function transitionCandidate(input: TransitionInput): Promise<TransitionResult> {
   const { actor, candidateId, to, via } = input;
-  if (!hasRole(actor, can.triage)) {
-    throw new ApiError(403, `your role (${actor.role}) may not triage; allowed: ${can.triage.join(", ")}`);
-  }
+  requireRole(actor, can.triage, "triage");
   const reason = input.reason?.trim() || undefined;
   if (requiresReason(to) && !reason) {
     throw new ApiError(422, "dismissing needs a reason", { issues: [{ path: "reason", message: "required" }] });
@@ -107,9 +106,7 @@ export interface AssignInput {
 /** Gives a candidate an owner (a shifter or coordinator), with its audit event. Same errors as a transition. */
 export async function assignCandidate(input: AssignInput): Promise<TransitionResult> {
   const { actor, candidateId, ownerId, via } = input;
-  if (!hasRole(actor, can.triage)) {
-    throw new ApiError(403, `your role (${actor.role}) may not assign candidates; allowed: ${can.triage.join(", ")}`);
-  }
+  requireRole(actor, can.triage, "assign candidates");
   const db = await getDb();
   return db.transaction(async (tx) => {
     const now = input.now ?? new Date();

@@ -2,7 +2,8 @@ import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb } from "@/db";
 import { followUpTasks, sites, taskReportFiles, taskReports, uploads, users, type Upload } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
+import { can, type SessionUser } from "@/lib/auth/roles";
+import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import { checkReportFileType, removeStored, storeBytes, type StoredFile, type UploadedPart } from "@/lib/storage";
 import { maxReportFileBytes, maxReportFilesPerRequest } from "@/lib/validations/uploads";
@@ -60,7 +61,7 @@ export async function attachReportFiles(
   parts: ReadonlyArray<UploadedPart>,
   now: Date = new Date(),
 ): Promise<UploadSummary[]> {
-  if (!hasRole(actor, can.claimTask)) throw new ApiError(403, `your role (${actor.role}) may not attach report files`);
+  requireRole(actor, can.claimTask, "attach report files");
   if (parts.length === 0) throw new ApiError(422, 'send at least one file in the multipart field "files"');
   if (parts.length > maxReportFilesPerRequest) throw new ApiError(422, `at most ${maxReportFilesPerRequest} files at a time`);
   const report = await reportWithTask(reportId);
