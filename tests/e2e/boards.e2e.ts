@@ -37,12 +37,27 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
 
     // Keyboard: New → (Acknowledged) → In review, with spoken announcements.
     const keyHandle = card(page, names.keys).getByTestId("card-handle");
-    await keyHandle.focus();
-    await page.keyboard.press("Space");
-    await page.keyboard.press("ArrowRight");
-    await page.keyboard.press("ArrowRight");
+    // dnd-kit's keyboard sensor starts listening for arrow keys one task after the pick-up (a setTimeout in its
+    // attach()), so each key waits for the announcement of the step before it, as a screen-reader user would.
     const liveRegion = page.locator('[id^="DndLiveRegion"]');
-    await page.waitForFunction(() => /In review/.test(document.querySelector('[id^="DndLiveRegion"]')?.textContent ?? ""), undefined, { timeout: 5_000 });
+    const heard = async (pattern: RegExp) => {
+      try {
+        await page.waitForFunction((source) => new RegExp(source).test(document.querySelector('[id^="DndLiveRegion"]')?.textContent ?? ""), pattern.source, {
+          timeout: 10_000,
+        });
+      } catch {
+        throw new Error(`the board never announced ${pattern}; last heard “${(await liveRegion.textContent()) ?? ""}”`);
+      }
+    };
+    await keyHandle.focus();
+    check(await keyHandle.evaluate((el) => el === document.activeElement), "the card's move handle takes keyboard focus");
+    await page.keyboard.press("Space");
+    await heard(new RegExp(`Picked up candidate ${names.keys}|candidate ${names.keys} is over column New`));
+    await page.evaluate(() => new Promise((resolve) => setTimeout(resolve, 50)));
+    await page.keyboard.press("ArrowRight");
+    await heard(/is over column Acknowledged/);
+    await page.keyboard.press("ArrowRight");
+    await heard(/is over column In review/);
     await page.keyboard.press("Space");
     await card(page, names.keys, "reviewing").waitFor({ timeout: 10_000 });
     const spoken = (await liveRegion.textContent()) ?? "";
@@ -100,8 +115,9 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     }
   } catch (error) {
     for (const [name, browser] of [["shifter", shifter], ["watcher", watcher]] as const) {
-      const open = browser.context.pages()[0];
-      if (open) await open.screenshot({ path: `${ctx.artifactsDir}/boards-${name}.png`, fullPage: true }).catch(() => undefined);
+      for (const [index, open] of browser.context.pages().entries()) {
+        await open.screenshot({ path: `${ctx.artifactsDir}/boards-${name}-${index}.png`, fullPage: true }).catch(() => undefined);
+      }
     }
     throw error;
   } finally {
