@@ -44,14 +44,20 @@ function toRecord(site: Site, observers: SiteObserver[]): SiteRecord {
   };
 }
 
-/** Every site with the people who observe there, by code. */
-export async function listSites(): Promise<SiteRecord[]> {
+/** Every site (or the one with `onlyId`) with the people who observe there, by code. */
+export async function listSites(onlyId?: string): Promise<SiteRecord[]> {
   const db = await getDb();
-  const rows = await db.select().from(sites).orderBy(asc(sites.code));
+  const rows = await db
+    .select()
+    .from(sites)
+    .where(onlyId === undefined ? undefined : eq(sites.id, onlyId))
+    .orderBy(asc(sites.code));
+  if (rows.length === 0) return [];
   const links = await db
     .select({ siteId: siteObservers.siteId, id: users.id, name: users.name, initials: users.initials })
     .from(siteObservers)
     .innerJoin(users, eq(users.id, siteObservers.userId))
+    .where(onlyId === undefined ? undefined : eq(siteObservers.siteId, onlyId))
     .orderBy(asc(users.name));
   return rows.map((site) =>
     toRecord(
@@ -62,7 +68,7 @@ export async function listSites(): Promise<SiteRecord[]> {
 }
 
 export async function getSite(id: string): Promise<SiteRecord> {
-  const found = (await listSites()).find((s) => s.id === id);
+  const [found] = await listSites(id);
   if (!found) throw new ApiError(404, "site not found");
   return found;
 }
