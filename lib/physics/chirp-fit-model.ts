@@ -6,6 +6,8 @@
 import { fail, succeed, type PhysicsResult } from "./result";
 
 export interface Evaluation {
+  /** whether the sandwich sums (maa, mat, mtt) were accumulated in this pass */
+  withSandwich: boolean;
   chiSquare: number;
   residualSumSq: number;
   // Normal matrix (symmetric 2×2) and gradient for the parameters (ln A, t_c).
@@ -83,7 +85,7 @@ export function evaluate(samples: Samples, fRef: number, point: ModelPoint, inve
       mtt += r2 * jt * jt;
     }
   }
-  return { chiSquare, residualSumSq, naa, nat, ntt, ga, gt, maa, mat, mtt };
+  return { withSandwich: withLeverage, chiSquare, residualSumSq, naa, nat, ntt, ga, gt, maa, mat, mtt };
 }
 
 /** Closed-form weighted straight line in y = (f/fRef)^(−8/3) = A (t_c − t), with σ_y = (8/3) y σ_f / f. */
@@ -134,11 +136,25 @@ export interface Refinement {
 const MAX_ITERATIONS = 30;
 const MAX_HALVINGS = 40;
 
+/** N⁻¹ of an evaluation's normal matrix as (aa, at, tt), or null when it is singular. */
+export function inverseNormalOf(e: Evaluation): readonly [number, number, number] | null {
+  const det = e.naa * e.ntt - e.nat * e.nat;
+  return det > 0 ? [e.ntt / det, -e.nat / det, e.naa / det] : null;
+}
+
 /**
  * Gauss–Newton from `start` until the proposed step is below `stepTolerance` standard errors (the last tiny step
- * is applied without another pass; the evaluation returned is from just before it).
+ * is applied without another pass; the evaluation returned is from just before it). With `sandwich`, every pass
+ * after the first also accumulates the sandwich sums, with leverages from the previous pass's N⁻¹, so the caller
+ * needs no extra pass over the data for them.
  */
-export function gaussNewton(samples: Samples, fRef: number, start: ModelPoint, stepTolerance: number): PhysicsResult<Refinement> {
+export function gaussNewton(
+  samples: Samples,
+  fRef: number,
+  start: ModelPoint,
+  stepTolerance: number,
+  sandwich = false,
+): PhysicsResult<Refinement> {
   const n = samples.t.length;
   const tLast = samples.t[n - 1] as number;
   const span = tLast - (samples.t[0] as number);
@@ -166,7 +182,7 @@ export function gaussNewton(samples: Samples, fRef: number, start: ModelPoint, s
     let accepted: { point: ModelPoint; e: Evaluation } | null = null;
     for (let h = 0, factor = 1; h < MAX_HALVINGS && accepted === null; h++, factor /= 2) {
       const trial: ModelPoint = { logA: point.logA + factor * stepA, tc: point.tc + factor * stepT };
-      const e = evaluate(samples, fRef, trial);
+      const e = evaluate(samples, fRef, trial, sandwich ? inverseNormalOf(current) : null);
       if (e !== null && e.chiSquare <= current.chiSquare) accepted = { point: trial, e };
     }
     if (accepted === null) break;

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { fitDerivativeTrack } from "@/lib/physics/chirp-fit-derivative";
+import { evaluate, gaussNewton, inverseNormalOf } from "@/lib/physics/chirp-fit-model";
 import { fitTimeTrack } from "@/lib/physics/chirp-fit-time";
 import { chirpMassFromComponents } from "@/lib/physics/chirp";
 import { syntheticDerivativeTrack, syntheticTimeTrack } from "./track-helpers";
@@ -81,6 +82,43 @@ describe("fitTimeTrack on long tracks (start from a subsample, then the full dat
     expect(fit.ok && Math.abs(fit.value.coalescenceTimeS - 0.5)).toBeLessThan(1e-6);
   });
 
+  // The full track is passed over only until a Gauss–Newton step falls below FULL_TRACK_STEP_TOLERANCE standard
+  // errors; that last step is applied blind, and without σ the sandwich sums come from that last pass (leverages
+  // from the pass before). Iterating on to a 10⁻⁹ step, then summing afresh, must not change the answer noticeably.
+  for (const [name, options] of [
+    ["neutron-star pair, 100 000 samples", { chirpMass: BNS_CHIRP_MASS, tcS: 0.5, startS: -100, endS: 0, samples: 100_000 }],
+    ["black-hole pair, 20 000 samples", { chirpMass: BBH_CHIRP_MASS, tcS: 0.01, startS: -0.3, endS: -0.01, samples: 20_000 }],
+  ] as const) {
+    for (const withSigma of [true, false]) {
+      it(`stops within 10⁻³ standard errors of the converged minimum (${name}, ${withSigma ? "with σ" : "no σ"})`, () => {
+        const track = syntheticTimeTrack({ ...options, relativeNoise: 0.01, seed: `converge-${name}` });
+        const samples = { t: track.t, f: track.f, sigma: withSigma ? track.fSigma : undefined };
+        const fit = fitTimeTrack(withSigma ? track : { t: track.t, f: track.f });
+        if (!fit.ok) throw new Error(fit.detail);
+        const { referenceFrequencyHz, amplitudePerS } = fit.value.model;
+        const logA = Math.log(amplitudePerS);
+        const converged = gaussNewton(samples, referenceFrequencyHz, { logA, tc: fit.value.coalescenceTimeS }, 1e-9);
+        if (!converged.ok) throw new Error(converged.detail);
+        // 𝓜 ∝ A^(3/5), so sd(ln A) = (5/3) sd(𝓜)/𝓜.
+        const logASd = ((5 / 3) * fit.value.chirpMassDetectorFrameSd) / fit.value.chirpMassDetectorFrame;
+        expect(Math.abs(converged.value.point.logA - logA) / logASd).toBeLessThan(1e-3);
+        expect(Math.abs(converged.value.point.tc - fit.value.coalescenceTimeS) / fit.value.coalescenceTimeSd).toBeLessThan(1e-3);
+        if (withSigma) return;
+        // Sandwich (HC3) errors at the converged minimum, with that point's own N⁻¹ for the leverages.
+        const at = converged.value.point;
+        const plain = evaluate(samples, referenceFrequencyHz, at);
+        const inverse = plain && inverseNormalOf(plain);
+        const exact = inverse && evaluate(samples, referenceFrequencyHz, at, inverse);
+        if (!inverse || !exact) throw new Error("no evaluation at the converged point");
+        const [iaa, iat, itt] = inverse;
+        const exactLogASd = Math.sqrt(iaa * iaa * exact.maa + 2 * iaa * iat * exact.mat + iat * iat * exact.mtt);
+        const exactTcSd = Math.sqrt(iat * iat * exact.maa + 2 * iat * itt * exact.mat + itt * itt * exact.mtt);
+        expect(Math.abs(logASd / exactLogASd - 1)).toBeLessThan(1e-4);
+        expect(Math.abs(fit.value.coalescenceTimeSd / exactTcSd - 1)).toBeLessThan(1e-4);
+      });
+    }
+  }
+
   it("quotes honest uncertainties for 5 000-sample tracks with 1 % noise", () => {
     let inside = 0;
     for (let k = 0; k < 100; k++) {
@@ -131,6 +169,8 @@ describe("bad time tracks give typed failures", () => {
     ["an infinite time", { t: [0, Number.POSITIVE_INFINITY, 2], f: [30, 31, 32] }, "non-finite-value"],
     ["a zero frequency", { t: [0, 1, 2], f: [30, 0, 32] }, "non-positive-frequency"],
     ["a negative σ", { t: [0, 1, 2], f: [30, 31, 32], fSigma: [1, -1, 1] }, "non-positive-uncertainty"],
+    ["a NaN σ", { t: [0, 1, 2], f: [30, 31, 32], fSigma: [1, 1, Number.NaN] }, "non-finite-value"],
+    ["a time going back", { t: [0, 2, 1], f: [30, 31, 32] }, "times-not-increasing"],
     ["repeated times", { t: [0, 1, 1], f: [30, 31, 32] }, "times-not-increasing"],
     ["falling frequency", { t: good.t, f: [...good.f].reverse() }, "frequency-not-rising"],
     ["constant frequency", { t: [0, 1, 2, 3], f: [50, 50, 50, 50] }, "frequency-not-rising"],
@@ -142,6 +182,13 @@ describe("bad time tracks give typed failures", () => {
       expect(fitTimeTrack(track)).toMatchObject({ ok: false, reason });
     });
   }
+
+  it("names the first sample at fault", () => {
+    expect(fitTimeTrack({ t: [0, 1, 2, 3], f: [30, 31, -1, 0] })).toMatchObject({ detail: "sample 2 has frequency -1 Hz" });
+    expect(fitTimeTrack({ t: [0, 1, 2, 2], f: [30, 31, 32, 33] })).toMatchObject({ detail: "t[3] ≤ t[2]" });
+    expect(fitTimeTrack({ t: [0, 1, 2], f: [30, 31, 32], fSigma: [1, 0, 1] })).toMatchObject({ detail: "fSigma 1 is 0" });
+    expect(fitTimeTrack({ t: [0, 1, Number.NaN], f: [30, 31, 32] })).toMatchObject({ detail: "sample 2 is not a finite number" });
+  });
 
   it("never throws on arbitrary arrays (fast-check)", () => {
     const value = fc.oneof(fc.double(), fc.constant(0), fc.double({ min: 1, max: 2000, noNaN: true }));
