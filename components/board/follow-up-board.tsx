@@ -122,8 +122,9 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
           keyboard.end();
         }}
       >
-        <div className="overflow-x-auto pb-2">
-          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] min-w-[60rem] grid-cols-5 gap-2.5">
+        {/* On a phone one column at a time, most of the screen wide, snapping as it is swiped; five abreast above. */}
+        <div className="snap-x snap-mandatory overflow-x-auto pb-2 sm:snap-none">
+          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] auto-cols-[85%] grid-flow-col gap-2.5 sm:min-w-[60rem] sm:auto-cols-auto sm:grid-flow-row sm:grid-cols-5">
             {taskStates.map((state) => (
               <TaskColumn
                 key={state}

@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import type { TaskState } from "@/db/schema/tasks";
 import type { TaskCard } from "@/lib/data/tasks";
-import { formatClock, formatInZone, isoUtc } from "@/lib/format/time";
+import { formatWindow, isoUtc } from "@/lib/format/time";
 import { priorityLabels, taskKindLabels, taskStateLabels } from "@/lib/triage/task-states";
 
 export interface TaskAction {
@@ -25,15 +25,9 @@ interface Props {
   onAction?: (task: TaskCard, to: TaskState) => void;
 }
 
-function windowText(task: TaskCard, timeZone: string): string | null {
-  if (!task.windowStart && !task.windowEnd) return null;
-  const from = task.windowStart ? formatInZone(task.windowStart, timeZone).slice(5, 16) : "now";
-  const to = task.windowEnd ? formatClock(task.windowEnd, timeZone) : "open end";
-  return `${from} → ${to}`;
-}
 
 export const TaskCardBody = memo(function TaskCardBody({ task, timeZone, actions, onAction }: Props) {
-  const window = windowText(task, timeZone);
+  const window = formatWindow(task.windowStart, task.windowEnd, timeZone);
   return (
     <div className="min-w-0 flex-1 space-y-1.5 text-xs">
       <div className="flex items-center gap-1.5">

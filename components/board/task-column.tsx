@@ -13,7 +13,7 @@ export function TaskColumn({ state, count, dropState, children }: { state: TaskS
       aria-labelledby={`task-column-${state}`}
       data-column={state}
       className={cn(
-        "flex min-h-0 min-w-0 flex-col rounded-lg border bg-sunken",
+        "flex min-h-0 min-w-0 snap-start flex-col rounded-lg border bg-sunken",
         isOver && dropState === "allowed" ? "border-accent bg-accent/10" : "border-line",
         dropState === "refused" && "opacity-60",
       )}

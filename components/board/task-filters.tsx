@@ -24,10 +24,10 @@ export function TaskFilters({ value, sites, onChange }: { value: TaskFilterValue
     return () => clearTimeout(timer);
   }, [candidate, value, onChange]);
   return (
-    <form role="search" aria-label="Filter tasks" className="mb-3 flex flex-wrap items-end gap-3" onSubmit={(e) => e.preventDefault()}>
-      <label className="text-xs text-muted">
+    <form role="search" aria-label="Filter tasks" className="mb-3 grid grid-cols-2 items-end gap-2 sm:flex sm:flex-wrap sm:gap-3" onSubmit={(e) => e.preventDefault()}>
+      <label className="min-w-0 text-xs text-muted">
         Site
-        <Select className="mt-1 w-48" value={value.site} onChange={(e) => onChange({ ...value, site: e.target.value })}>
+        <Select className="mt-1 w-full sm:w-48" value={value.site} onChange={(e) => onChange({ ...value, site: e.target.value })}>
           <option value="">All sites</option>
           {sites.map((s) => (
             <option key={s.id} value={s.code}>
@@ -36,9 +36,9 @@ export function TaskFilters({ value, sites, onChange }: { value: TaskFilterValue
           ))}
         </Select>
       </label>
-      <label className="text-xs text-muted">
+      <label className="min-w-0 text-xs text-muted">
         Kind
-        <Select className="mt-1 w-52" value={value.kind} onChange={(e) => onChange({ ...value, kind: e.target.value as TaskKind | "" })}>
+        <Select className="mt-1 w-full sm:w-52" value={value.kind} onChange={(e) => onChange({ ...value, kind: e.target.value as TaskKind | "" })}>
           <option value="">All kinds</option>
           {taskKinds.map((k) => (
             <option key={k} value={k}>
@@ -47,11 +47,11 @@ export function TaskFilters({ value, sites, onChange }: { value: TaskFilterValue
           ))}
         </Select>
       </label>
-      <label className="text-xs text-muted">
+      <label className="min-w-0 text-xs text-muted">
         Candidate
         <span className="relative mt-1 block">
           <Search aria-hidden className="pointer-events-none absolute left-2.5 top-2.5 h-4 w-4 text-faint" />
-          <Input className="w-48 pl-8" value={candidate} placeholder="id or name" onChange={(e) => setCandidate(e.target.value)} />
+          <Input className="w-full pl-8 sm:w-48" value={candidate} placeholder="id or name" onChange={(e) => setCandidate(e.target.value)} />
         </span>
       </label>
       <label className="flex items-center gap-2 pb-2 text-sm">

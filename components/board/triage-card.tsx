@@ -29,12 +29,12 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
       <div className="flex items-center gap-1.5">
         <Link
           href={`/candidates/${card.id}`}
-          className={cn("truncate font-mono text-sm font-semibold hover:underline", card.withdrawn && "line-through decoration-alarm")}
+          className={cn("truncate font-mono text-[13px] font-semibold tracking-tight hover:underline", card.withdrawn && "line-through decoration-alarm")}
+          title={card.externalId}
           prefetch={false}
         >
           {card.externalId}
         </Link>
-        <span className="text-xs text-faint">r{card.revision}</span>
         {onActions ? (
           <button
             type="button"
@@ -49,6 +49,9 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
       </div>
       <div className="flex flex-wrap items-center gap-x-2 gap-y-1 text-xs text-muted">
         <StageBadge stage={card.stage} />
+        <span className="text-faint" title={`Revision ${card.revision}`}>
+          r{card.revision}
+        </span>
         <time dateTime={isoUtc(card.receivedAt)} title={`Received ${formatInZone(card.receivedAt, timeZone)} (${isoUtc(card.receivedAt)})`}>
           {formatClock(card.receivedAt, timeZone, { zone: false })} · <Age since={card.receivedAt} />
         </time>
@@ -60,10 +63,16 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
           <dt className="shrink-0 text-faint" title="Chirp mass, detector frame">
             𝓜<sub>det</sub>
           </dt>
-          <dd className="font-mono tabular-nums leading-tight">
-            {card.chirpMassDetectorFrame === null
-              ? "not fitted"
-              : formatWithUncertainty(card.chirpMassDetectorFrame, card.chirpMassDetectorFrameSd, SOLAR_MASS_UNIT)}
+          {/* The unit may wrap on its own line in a narrow column; the number never breaks. */}
+          <dd className="flex min-w-0 flex-wrap items-baseline gap-x-1 tabular-nums leading-tight">
+            {card.chirpMassDetectorFrame === null ? (
+              "not fitted"
+            ) : (
+              <>
+                <span className="whitespace-nowrap">{formatWithUncertainty(card.chirpMassDetectorFrame, card.chirpMassDetectorFrameSd)}</span>
+                <span className="text-faint">{SOLAR_MASS_UNIT}</span>
+              </>
+            )}
           </dd>
         </div>
         <div className="flex gap-1.5">

@@ -65,7 +65,11 @@ function ThemeToggle() {
   );
 }
 
-function NavList({ items, onNavigate }: { items: NavItem[]; onNavigate?: () => void }) {
+/**
+ * The main links. `rail`: the desktop sidebar, which below the 2xl breakpoint shows icons only (a laptop's width
+ * goes to the boards' six columns); the names stay in the accessibility tree and show as tooltips.
+ */
+function NavList({ items, onNavigate, rail = false }: { items: NavItem[]; onNavigate?: () => void; rail?: boolean }) {
   const pathname = usePathname();
   return (
     <ul className="space-y-0.5">
@@ -78,13 +82,15 @@ function NavList({ items, onNavigate }: { items: NavItem[]; onNavigate?: () => v
               href={item.href}
               onClick={onNavigate}
               aria-current={active ? "page" : undefined}
+              title={rail ? item.label : undefined}
               className={cn(
                 "flex items-center gap-2.5 rounded-md px-2.5 py-2 text-sm",
+                rail && "justify-center 2xl:justify-start",
                 active ? "bg-accent/15 font-medium text-fg" : "text-muted hover:bg-raised hover:text-fg",
               )}
             >
-              <Icon aria-hidden className={cn("h-4 w-4", active && "text-accent")} />
-              {item.label}
+              <Icon aria-hidden className={cn("h-4 w-4 shrink-0", active && "text-accent")} />
+              <span className={rail ? "sr-only 2xl:not-sr-only" : undefined}>{item.label}</span>
             </Link>
           </li>
         );
@@ -111,14 +117,17 @@ export function AppShell({
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-accent focus:px-3 focus:py-2 focus:text-accent-fg">
         Skip to content
       </a>
-      <nav aria-label="Main" className="no-print sticky top-0 hidden h-dvh w-56 shrink-0 flex-col border-r border-line bg-surface p-3 lg:flex">
-        <Link href="/" className="mb-5 flex items-center gap-2 px-2 pt-1">
-          <Inbox className="h-5 w-5 text-accent" aria-hidden />
-          <span className="text-base font-semibold tracking-tight">Chirpdesk</span>
+      <nav
+        aria-label="Main"
+        className="no-print sticky top-0 hidden h-dvh w-14 shrink-0 flex-col border-r border-line bg-surface px-1.5 py-3 lg:flex 2xl:w-56 2xl:px-3"
+      >
+        <Link href="/" className="mb-5 flex items-center justify-center gap-2 px-2 pt-1 2xl:justify-start" title="Chirpdesk">
+          <Inbox className="h-5 w-5 shrink-0 text-accent" aria-hidden />
+          <span className="sr-only text-base font-semibold tracking-tight 2xl:not-sr-only">Chirpdesk</span>
         </Link>
-        <NavList items={items} />
+        <NavList items={items} rail />
         <div className="mt-auto border-t border-line pt-3">
-          <UserBlock user={user} />
+          <UserBlock user={user} rail />
         </div>
       </nav>
       {menuOpen ? (
@@ -165,11 +174,11 @@ export function AppShell({
   );
 }
 
-function UserBlock({ user }: { user: SessionUser }) {
+function UserBlock({ user, rail = false }: { user: SessionUser; rail?: boolean }) {
   return (
-    <div className="flex items-center gap-2 px-1">
-      <Avatar name={user.name} initials={user.initials} className="h-8 w-8 text-xs" />
-      <div className="min-w-0 flex-1">
+    <div className={cn("flex items-center gap-2 px-1", rail && "flex-col 2xl:flex-row")}>
+      <Avatar name={user.name} initials={user.initials} className="h-8 w-8 shrink-0 text-xs" />
+      <div className={cn("min-w-0 flex-1", rail && "sr-only 2xl:not-sr-only")}>
         <p className="truncate text-sm font-medium">{user.name}</p>
         <p className="text-xs text-muted" data-testid="role-label">
           {roleLabels[user.role]}

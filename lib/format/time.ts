@@ -52,6 +52,21 @@ export function formatClock(instant: Date | number | string, timeZone: string, o
   return options.zone === false ? p.time : `${p.time} ${p.zone}`;
 }
 
+/**
+ * An observing window in the viewer's zone, "11-30 22:00 → 05:30 GMT-3" (the end's date is shown only when it falls
+ * on another day than the start); "now → …" without a start, "… → open end" without an end; null with neither.
+ */
+export function formatWindow(start: Date | number | string | null, end: Date | number | string | null, timeZone: string): string | null {
+  if (start === null && end === null) return null;
+  const from = start === null ? null : zonedParts(start, timeZone, false);
+  const to = end === null ? null : zonedParts(end, timeZone, false);
+  const monthDay = (p: ZonedParts) => p.date.slice(5);
+  const fromText = from ? `${monthDay(from)} ${from.time}` : "now";
+  if (!to) return `${fromText}${from ? ` ${from.zone}` : ""} → open end`;
+  const toText = from && from.date === to.date ? to.time : `${monthDay(to)} ${to.time}`;
+  return `${fromText} → ${toText} ${to.zone}`;
+}
+
 /** ISO 8601 UTC, for hover titles and machine-readable attributes. */
 export function isoUtc(instant: Date | number | string): string {
   const date = new Date(instant);

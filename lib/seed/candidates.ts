@@ -61,6 +61,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
   await markPastPagesDelivered(db);
 
   // The newest two stay new for the board; the rest were handled by whoever was on shift.
+  const pursued: Array<{ candidateId: string; index: number; at: number; shifter: SessionUser }> = [];
   for (const [index, item] of created.slice(0, -2).entries()) {
     const [row] = await db.select().from(candidates).where(eq(candidates.id, item.id)).limit(1);
     if (!row || row.stage === "withdrawn") continue;
@@ -79,24 +80,40 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
       continue;
     }
     await transitionCandidate({ actor: shifter, candidateId: item.id, to: "pursue", via: "board", now: new Date(at) });
+    pursued.push({ candidateId: item.id, index, at, shifter });
+  }
+
+  // Follow-up tasks. The two newest pursued candidates are still being worked tonight: each has a claimed task
+  // (the newest one's is being observed) and an open one, with windows that run into the coming night. Older
+  // tasks went the whole way to a report.
+  for (const [order, { candidateId, index, at, shifter }] of pursued.entries()) {
+    const live = order >= pursued.length - 2;
     const chosen = siteRows.slice(0, 2 + (index % 2));
     setNotifyClock(() => at);
     const tasks = await createTasks(
       shifter,
-      item.id,
+      candidateId,
       chosen.map((s, i) => ({
         kind: s.fieldOfViewDeg2 > 5 ? "wide-field-tiling" : s.fieldOfViewDeg2 < 0.1 ? "spectroscopy" : "galaxy-targeted",
         siteId: s.id,
         windowStart: new Date(at + 10 * MINUTE),
-        windowEnd: new Date(at + 10 * 60 * MINUTE),
+        windowEnd: new Date(live ? Math.max(at, now.getTime()) + 10 * 60 * MINUTE : at + 10 * 60 * MINUTE),
         priority: i === 0 ? 1 : 2,
         notes: "",
       })),
       new Date(at),
     ).finally(() => setNotifyClock(null));
     for (const [taskIndex, task] of tasks.entries()) {
-      if (item.receivedAt > now.getTime() - 12 * 60 * MINUTE && taskIndex > 0) continue; // recent ones still open
       const observer = observers[(index + taskIndex) % observers.length] as SessionUser;
+      if (live) {
+        if (taskIndex > 0) continue; // open, waiting for an observer
+        let taskAt = Math.max(at + MINUTE, now.getTime() - (40 + rand() * 60) * MINUTE);
+        await claimTask(observer, task.id, new Date(taskAt));
+        if (order < pursued.length - 1) continue;
+        taskAt = Math.min(taskAt + (5 + rand() * 20) * MINUTE, now.getTime() - MINUTE);
+        await moveTask({ actor: observer, taskId: task.id, to: "observing", now: new Date(taskAt) });
+        continue;
+      }
       let taskAt = at + (8 + rand() * 80) * MINUTE;
       await claimTask(observer, task.id, new Date(taskAt));
       taskAt += (10 + rand() * 60) * MINUTE;

@@ -107,3 +107,18 @@ describe("clock times", () => {
     expect(formatInZone(instant, "Australia/Perth")).toBe("2025-07-02 07:30:00 GMT+8");
   });
 });
+
+describe("observing windows", () => {
+  it("dates the end only when it falls on another local day than the start", async () => {
+    const { formatWindow } = await import("@/lib/format/time");
+    const start = Date.UTC(2026, 10, 30, 10, 21);
+    // Santiago keeps daylight-saving time, UTC−3, in the southern summer (tz database), so 10:21 UTC is 07:21 there.
+    expect(formatWindow(start, Date.UTC(2026, 10, 30, 12, 49), "America/Santiago")).toBe("11-30 07:21 → 09:49 GMT-3");
+    expect(formatWindow(start, Date.UTC(2026, 11, 2, 13, 49), "America/Santiago")).toBe("11-30 07:21 → 12-02 10:49 GMT-3");
+    // The same pair of instants seen from Perth (UTC+8) starts at 18:21 and ends at 20:49 on the same day.
+    expect(formatWindow(start, Date.UTC(2026, 10, 30, 12, 49), "Australia/Perth")).toBe("11-30 18:21 → 20:49 GMT+8");
+    expect(formatWindow(null, Date.UTC(2026, 11, 2, 13, 49), "UTC")).toBe("now → 12-02 13:49 UTC");
+    expect(formatWindow(start, null, "UTC")).toBe("11-30 10:21 UTC → open end");
+    expect(formatWindow(null, null, "UTC")).toBeNull();
+  });
+});
