@@ -209,8 +209,9 @@ export function TriageBoard({
         accessibility={{ announcements, screenReaderInstructions }}
       >
         <RosterStrip roster={roster} dragging={activeCard !== undefined} />
-        <div className="overflow-x-auto pb-2">
-          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] min-w-[66rem] grid-cols-6 gap-2.5">
+        {/* On a phone one column at a time, most of the screen wide, snapping as it is swiped; six abreast above. */}
+        <div className="snap-x snap-mandatory overflow-x-auto pb-2 sm:snap-none">
+          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] auto-cols-[85%] grid-flow-col gap-2.5 sm:min-w-[66rem] sm:auto-cols-auto sm:grid-flow-row sm:grid-cols-6">
             {triageStates.map((state) => (
               <TriageColumn
                 key={state}

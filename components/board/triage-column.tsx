@@ -25,7 +25,7 @@ export function TriageColumn({
       aria-labelledby={headingId}
       data-column={state}
       className={cn(
-        "flex min-h-0 min-w-0 flex-col rounded-lg border bg-sunken transition-colors",
+        "flex min-h-0 min-w-0 snap-start flex-col rounded-lg border bg-sunken transition-colors",
         isOver && dropState === "allowed" ? "border-accent bg-accent/10" : "border-line",
         isOver && dropState === "refused" && "border-alarm/60",
         dropState === "refused" && "opacity-60",
