@@ -69,8 +69,10 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
         </p>
       ) : null}
       <Caution />
-      <div className="grid gap-4 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-        <div className="space-y-4">
+      {/* Two columns from xl. Below it one column in source order: the figures and the sky, then triage, class
+          and tasks, and the history last (a phone at the telescope should not scroll past the audit log). */}
+      <div className="grid gap-4 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)] xl:grid-rows-[auto_1fr]">
+        <div className="space-y-4 xl:col-start-1 xl:row-start-1">
           <Panel>
             <PanelTitle>Key numbers</PanelTitle>
             <KeyNumbers detail={detail} derived={derived} timeZone={tz} />
@@ -80,16 +82,8 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
             <TrackPlot series={series} />
           </Panel>
           <SkymapSlot candidateId={detail.id} revision={detail.revision} timeZone={tz} />
-          <Panel>
-            <PanelTitle>Revisions</PanelTitle>
-            <RevisionTimeline revisions={detail.revisions} timeZone={tz} />
-          </Panel>
-          <Panel>
-            <PanelTitle>Audit log</PanelTitle>
-            <AuditLog entries={audit} people={people} timeZone={tz} />
-          </Panel>
         </div>
-        <div className="space-y-4">
+        <div className="space-y-4 xl:col-start-2 xl:row-span-2 xl:row-start-1">
           <Panel>
             <PanelTitle>Triage</PanelTitle>
             <CandidateTriagePanel
@@ -126,6 +120,16 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
           <Panel>
             <PanelTitle>Notes</PanelTitle>
             <NotesThread candidateId={detail.id} initialNotes={notes} timeZone={tz} />
+          </Panel>
+        </div>
+        <div className="space-y-4 xl:col-start-1 xl:row-start-2">
+          <Panel>
+            <PanelTitle>Revisions</PanelTitle>
+            <RevisionTimeline revisions={detail.revisions} timeZone={tz} />
+          </Panel>
+          <Panel>
+            <PanelTitle>Audit log</PanelTitle>
+            <AuditLog entries={audit} people={people} timeZone={tz} />
           </Panel>
         </div>
       </div>
