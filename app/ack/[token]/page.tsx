@@ -1,7 +1,7 @@
 import { CircleCheck, CircleX, Inbox, ShieldCheck } from "lucide-react";
 import Link from "next/link";
 import { formatInZone } from "@/lib/format/time";
-import { acknowledgeButtonLabel } from "@/lib/notify/ack-copy";
+import { acknowledgeButtonLabel, acknowledgedText } from "@/lib/notify/ack-copy";
 import { describeAckLink } from "@/lib/notify/acknowledge";
 import { candidateFacts } from "@/lib/notify/content";
 import { ackConfirmPath, candidatePath } from "@/lib/notify/links";
@@ -53,12 +53,7 @@ export default async function AckPage({ params, searchParams }: { params: Promis
             ) : (
               <p className="mt-5 flex items-start gap-2 text-sm" data-testid="ack-message">
                 <CircleCheck aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-ok" />
-                <span>
-                  {state.state === "done" && state.acknowledgedBy === state.userName ? "Acknowledged — escalation stopped." : "Already acknowledged"}
-                  {state.acknowledgedBy ? ` by ${state.acknowledgedBy}` : ""}
-                  {state.acknowledgedAt ? ` at ${formatInZone(state.acknowledgedAt, state.timeZone)}` : ""}.
-                  {state.candidate.triageState !== "acknowledged" && state.candidate.triageState !== "new" ? ` It is now in "${state.candidate.triageState}".` : ""}
-                </span>
+                <span>{acknowledgedText(state)}</span>
               </p>
             )}
             <Link href={candidatePath(state.candidate.id)} className="mt-4 inline-block text-sm text-accent">
