@@ -12,6 +12,7 @@ import { apiFetch } from "@/lib/api-client";
 import type { Role } from "@/lib/auth/roles";
 import type { TaskCard } from "@/lib/data/tasks";
 import { taskKindLabels, taskStateLabels } from "@/lib/triage/task-states";
+import { BoardGrid } from "./board-grid";
 import { boardAnnouncements } from "./announcements";
 import { createKeyboardTargets } from "./keyboard-targets";
 import { ProgressiveCards } from "./progressive-cards";
@@ -122,25 +123,22 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
           keyboard.end();
         }}
       >
-        {/* On a phone one column at a time, most of the screen wide, snapping as it is swiped; five abreast above. */}
-        <div className="snap-x snap-mandatory overflow-x-auto pb-2 sm:snap-none">
-          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] auto-cols-[85%] grid-flow-col gap-2.5 sm:min-w-[60rem] sm:auto-cols-auto sm:grid-flow-row sm:grid-cols-5">
-            {taskStates.map((state) => (
-              <TaskColumn
-                key={state}
-                state={state}
-                count={columns[state].length}
-                dropState={!active ? "idle" : active.state === state ? "home" : activeActions.some((a) => a.to === state) ? "allowed" : "refused"}
-              >
-                <ProgressiveCards
-                  items={columns[state]}
-                  render={(task) => <DraggableTaskCard key={task.id} task={task} timeZone={viewer.timeZone} actions={taskActionsFor(task, viewer)} onAction={act} />}
-                />
-                {columns[state].length === 0 ? <p className="px-1 py-4 text-center text-xs text-faint">{state === "open" ? "No open tasks. Tasks appear when a candidate goes for follow-up." : "Empty"}</p> : null}
-              </TaskColumn>
-            ))}
-          </div>
-        </div>
+        <BoardGrid columns={5}>
+          {taskStates.map((state) => (
+            <TaskColumn
+              key={state}
+              state={state}
+              count={columns[state].length}
+              dropState={!active ? "idle" : active.state === state ? "home" : activeActions.some((a) => a.to === state) ? "allowed" : "refused"}
+            >
+              <ProgressiveCards
+                items={columns[state]}
+                render={(task) => <DraggableTaskCard key={task.id} task={task} timeZone={viewer.timeZone} actions={taskActionsFor(task, viewer)} onAction={act} />}
+              />
+              {columns[state].length === 0 ? <p className="px-1 py-4 text-center text-xs text-faint">{state === "open" ? "No open tasks. Tasks appear when a candidate goes for follow-up." : "Empty"}</p> : null}
+            </TaskColumn>
+          ))}
+        </BoardGrid>
         <DragOverlay dropAnimation={null}>
           {active ? (
             <div className="w-56 rounded-md border border-accent bg-surface p-2 shadow-2xl">

@@ -28,6 +28,7 @@ import type { Roster, RosterPerson } from "@/lib/data/triage";
 import { formatFalseAlarmRate } from "@/lib/format/far";
 import { canTransition, triageLabels, type TriageVia } from "@/lib/triage/transitions";
 import type { TaskDraft } from "@/lib/validations/tasks";
+import { BoardGrid } from "./board-grid";
 import { boardAnnouncements, screenReaderInstructions } from "./announcements";
 import { createKeyboardTargets } from "./keyboard-targets";
 import { ProgressiveCards } from "./progressive-cards";
@@ -209,40 +210,37 @@ export function TriageBoard({
         accessibility={{ announcements, screenReaderInstructions }}
       >
         <RosterStrip roster={roster} dragging={activeCard !== undefined} />
-        {/* On a phone one column at a time, most of the screen wide, snapping as it is swiped; six abreast above. */}
-        <div className="snap-x snap-mandatory overflow-x-auto pb-2 sm:snap-none">
-          <div className="grid h-[calc(100dvh-14rem)] min-h-[28rem] auto-cols-[85%] grid-flow-col gap-2.5 sm:min-w-[66rem] sm:auto-cols-auto sm:grid-flow-row sm:grid-cols-6">
-            {triageStates.map((state) => (
-              <TriageColumn
-                key={state}
-                state={state}
-                count={columns[state].length}
-                dropState={
-                  !activeCard ? "idle" : activeCard.triageState === state ? "home" : canTransition(activeCard.triageState, state) ? "allowed" : "refused"
-                }
-              >
-                <ProgressiveCards
-                  items={columns[state]}
-                  render={(card) => (
-                    <DraggableTriageCard
-                      key={card.id}
-                      card={card}
-                      canDrag={canTriage}
-                      deadlines={board.deadlines}
-                      timeZone={viewer.timeZone}
-                      onActions={openActions}
-                    />
-                  )}
-                />
-                {columns[state].length === 0 ? (
-                  <p className="px-1 py-4 text-center text-xs text-faint">
-                    {state === "new" ? "Nothing waiting. New triggers from the feed land here." : "Empty"}
-                  </p>
-                ) : null}
-              </TriageColumn>
-            ))}
-          </div>
-        </div>
+        <BoardGrid columns={6}>
+          {triageStates.map((state) => (
+            <TriageColumn
+              key={state}
+              state={state}
+              count={columns[state].length}
+              dropState={
+                !activeCard ? "idle" : activeCard.triageState === state ? "home" : canTransition(activeCard.triageState, state) ? "allowed" : "refused"
+              }
+            >
+              <ProgressiveCards
+                items={columns[state]}
+                render={(card) => (
+                  <DraggableTriageCard
+                    key={card.id}
+                    card={card}
+                    canDrag={canTriage}
+                    deadlines={board.deadlines}
+                    timeZone={viewer.timeZone}
+                    onActions={openActions}
+                  />
+                )}
+              />
+              {columns[state].length === 0 ? (
+                <p className="px-1 py-4 text-center text-xs text-faint">
+                  {state === "new" ? "Nothing waiting. New triggers from the feed land here." : "Empty"}
+                </p>
+              ) : null}
+            </TriageColumn>
+          ))}
+        </BoardGrid>
         <DragOverlay dropAnimation={null}>
           {activeCard ? (
             <div className="w-60 rounded-md border border-accent bg-surface p-2 shadow-2xl">
