@@ -103,6 +103,22 @@ function siteFields({ observers: _o, createdAt: _c, ...site }: SiteRecord): Site
   return site;
 }
 
+type RankedFields = Pick<SiteVisibilityRow, "observableProbability" | "bestWindow"> & { site: Pick<SiteFields, "code"> };
+
+/**
+ * Site order for a sky map: most of the region observable first; then most of it at one instant; then the sooner
+ * window (a kilonova fades within days); then by site code, so the order never depends on the query's.
+ */
+export function compareVisibilityRows(a: RankedFields, b: RankedFields): number {
+  const windowStart = (r: RankedFields) => (r.bestWindow ? Date.parse(r.bestWindow.start) : Number.POSITIVE_INFINITY);
+  return (
+    b.observableProbability - a.observableProbability ||
+    (b.bestWindow?.probabilityAboveLimit ?? 0) - (a.bestWindow?.probabilityAboveLimit ?? 0) ||
+    windowStart(a) - windowStart(b) ||
+    a.site.code.localeCompare(b.site.code)
+  );
+}
+
 /** Visibility of one sky map from every site, most observable first. */
 export async function skymapVisibility(skymap: { id: string; sha256: string }, now: Date, siteList?: SiteRecord[]): Promise<CandidateVisibility> {
   const all = siteList ?? (await listSites());
@@ -111,15 +127,7 @@ export async function skymapVisibility(skymap: { id: string; sha256: string }, n
     const site = siteFields(record);
     rows.push(toRow(site, await visibilityFor(skymap.sha256, site, now)));
   }
-  // most of the region first; then most at one instant; then the sooner window (a kilonova fades within days)
-  const windowStart = (r: SiteVisibilityRow) => (r.bestWindow ? Date.parse(r.bestWindow.start) : Number.POSITIVE_INFINITY);
-  rows.sort(
-    (a, b) =>
-      b.observableProbability - a.observableProbability ||
-      (b.bestWindow?.probabilityAboveLimit ?? 0) - (a.bestWindow?.probabilityAboveLimit ?? 0) ||
-      windowStart(a) - windowStart(b) ||
-      a.site.code.localeCompare(b.site.code),
-  );
+  rows.sort(compareVisibilityRows);
   return { skymapId: skymap.id, computedAt: now.toISOString(), level: REGION_LEVEL, rows };
 }
 

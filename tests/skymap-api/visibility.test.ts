@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createSite } from "@/lib/data/sites";
 import { uploadSkymap } from "@/lib/data/skymaps";
-import { candidateVisibility, suggestTasks, taskKindForFieldOfView, tonightOverview } from "@/lib/data/visibility";
+import { candidateVisibility, compareVisibilityRows, suggestTasks, taskKindForFieldOfView, tonightOverview } from "@/lib/data/visibility";
 import { siteFormSchema } from "@/lib/validations/sites";
 import * as suggestionsRoute from "@/app/api/v1/candidates/[id]/suggestions/route";
 import * as visibilityRoute from "@/app/api/v1/candidates/[id]/visibility/route";
@@ -95,11 +95,6 @@ describe("suggested tasks for the planning dialog", () => {
       expect(s.windowEnd).toBe(row?.bestWindow?.end);
       expect(s.notes).toMatch(/of the 90 % region rises above/);
     }
-    // ties on the observable share go to the sooner window
-    for (let i = 1; i < suggestions.length; i++) {
-      const [a, b] = [suggestions[i - 1], suggestions[i]];
-      if (a && b && a.observableProbability === b.observableProbability) expect(Date.parse(a.windowStart)).toBeLessThanOrEqual(Date.parse(b.windowStart));
-    }
     expect(suggestions[0]?.priority).toBe(1);
     const tiling = suggestions.find((s) => s.kind === "wide-field-tiling");
     // ~1360 deg² × observable share / 9.6 deg² per pointing
@@ -113,6 +108,23 @@ describe("suggested tasks for the planning dialog", () => {
     const none = await call(suggestionsRoute.GET, { caller: shifter, params: { id: withoutMap } });
     expect(none.status).toBe(200);
     expect(none.json.suggestions).toEqual([]);
+  });
+
+  it("breaks ties on the observable share by the share at one instant, then the sooner window, then the code", () => {
+    const row = (code: string, observable: number, atOnce: number | null, start?: string) => ({
+      site: { code },
+      observableProbability: observable,
+      bestWindow: atOnce === null ? null : { start: start ?? "2030-03-20T23:00:00.000Z", end: "2030-03-21T04:00:00.000Z", probabilityAboveLimit: atOnce },
+    });
+    const rows = [
+      row("D", 0.6, 0.5, "2030-03-21T01:00:00.000Z"),
+      row("C", 0.6, 0.5, "2030-03-20T22:00:00.000Z"),
+      row("B", 0.6, 0.7),
+      row("E", 0.6, 0.5, "2030-03-20T22:00:00.000Z"),
+      row("Z", 0, null),
+      row("A", 0.9, 0.2),
+    ];
+    expect([...rows].sort(compareVisibilityRows).map((r) => r.site.code)).toEqual(["A", "B", "C", "E", "D", "Z"]);
   });
 
   it("chooses kinds by field of view at the stated thresholds", () => {
