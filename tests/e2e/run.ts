@@ -63,6 +63,7 @@ async function postCandidate(payload: unknown): Promise<{ status: number; body: 
   return { status: res.status, body: (await res.json()) as Record<string, unknown> };
 }
 
+const MAX_ATTEMPTS = 2;
 let passed = 0;
 let failed = 0;
 try {
@@ -83,14 +84,20 @@ try {
       artifactsDir,
       log: (m) => console.log(`    ${m}`),
     };
-    const started = Date.now();
-    try {
-      await mod.default(ctx);
-      passed += 1;
-      console.log(`✓ ${file} (${Date.now() - started} ms)`);
-    } catch (error) {
-      failed += 1;
-      console.error(`✗ ${file}: ${(error as Error).stack ?? String(error)}`);
+    // A file that fails is run once more and both attempts are printed: one hung click on a loaded 2-core
+    // machine should not sink a CI run, but a test that needs its second attempt is flaky and gets looked at.
+    for (let attempt = 1; attempt <= MAX_ATTEMPTS; attempt++) {
+      const started = Date.now();
+      try {
+        await mod.default(ctx);
+        passed += 1;
+        console.log(`✓ ${file} (${Date.now() - started} ms)${attempt > 1 ? ` — passed on attempt ${attempt} of ${MAX_ATTEMPTS}; the first failed (above)` : ""}`);
+        break;
+      } catch (error) {
+        const last = attempt === MAX_ATTEMPTS;
+        console.error(`✗ ${file}${last ? "" : ` (attempt ${attempt} of ${MAX_ATTEMPTS}; trying once more)`}: ${(error as Error).stack ?? String(error)}`);
+        if (last) failed += 1;
+      }
     }
   }
 } finally {

@@ -82,6 +82,10 @@ export default async function skymapE2E(ctx: E2EContext): Promise<void> {
     await page.screenshot({ path: path.join(ctx.artifactsDir, "skymap-candidate.png"), fullPage: true });
     check(errors.length === 0, `page errors: ${errors.join("; ")}`);
 
+    // The shifter is done: close the page (its live refresh and sky-map canvases) before the next person signs in.
+    await cdp.detach();
+    await page.close();
+
     // An observer sees the map but gets no upload control.
     await context.clearCookies();
     const observer = await context.newPage();
@@ -102,9 +106,13 @@ export default async function skymapE2E(ctx: E2EContext): Promise<void> {
     const coordinator = await context.newPage();
     await ctx.signIn(coordinator, "cleo@chirpdesk.test", "demo-coordinator");
     await coordinator.goto(`${ctx.baseUrl}/sites`);
+    await coordinator.waitForSelector('[data-testid="sites-table"]', { timeout: 30_000 });
     await coordinator.getByRole("button", { name: "Add site" }).click();
-    await coordinator.fill("#site-code", "E2E");
-    await coordinator.fill("#site-name", "Test Hill (fictional)");
+    // A code and name of this run's own, so a second attempt (tests/e2e/run.ts) does not meet the first one's site.
+    const siteTag = Date.now().toString(36).slice(-6).toUpperCase();
+    const siteName = `Test Hill ${siteTag} (fictional)`;
+    await coordinator.fill("#site-code", `E2E-${siteTag}`);
+    await coordinator.fill("#site-name", siteName);
     await coordinator.fill("#site-latitudeDeg", "95");
     await coordinator.fill("#site-longitudeDeg", "10");
     await coordinator.fill("#site-elevationM", "500");
@@ -113,8 +121,13 @@ export default async function skymapE2E(ctx: E2EContext): Promise<void> {
     await coordinator.getByText("between −90 and 90").waitFor({ timeout: 10_000 });
     await coordinator.fill("#site-latitudeDeg", "-20");
     await coordinator.locator('[data-testid="site-form"] button[type="submit"]').click();
-    await coordinator.locator('[data-testid="sites-table"]').getByText("Test Hill (fictional)").waitFor({ timeout: 15_000 });
+    await coordinator.locator('[data-testid="sites-table"]').getByText(siteName).waitFor({ timeout: 15_000 });
     await coordinator.close();
+  } catch (error) {
+    for (const [index, open] of context.pages().entries()) {
+      await open.screenshot({ path: path.join(ctx.artifactsDir, `skymap-failure-${index}.png`), fullPage: true }).catch(() => undefined);
+    }
+    throw error;
   } finally {
     await close();
   }
