@@ -75,7 +75,7 @@ export function NotificationList({ timeZone }: { timeZone: string }) {
           return (
             <li key={n.id} className={cn("flex flex-wrap items-start gap-3 px-4 py-3", !n.readAt && "bg-accent/5")}>
               <span aria-hidden className={cn("mt-2 h-2 w-2 shrink-0 rounded-full", n.readAt ? "bg-line" : "bg-accent")} />
-              <div className="min-w-0 flex-1 space-y-1">
+              <div className="min-w-[14rem] flex-1 basis-0 space-y-1">
                 <div className="flex flex-wrap items-center gap-2">
                   <Badge tone={kind.tone}>{kind.text}</Badge>
                   <span className="font-medium">{n.title}</span>
@@ -87,7 +87,7 @@ export function NotificationList({ timeZone }: { timeZone: string }) {
                   <DeliveryChips deliveries={n.deliveries} />
                 </div>
               </div>
-              <div className="flex shrink-0 gap-1">
+              <div className="ml-5 flex shrink-0 gap-1 sm:ml-0">
                 {n.url ? (
                   <a href={n.url} onClick={() => !n.readAt && markRead.mutate({ ids: [n.id] })} className="inline-flex h-8 items-center gap-1 rounded-md border border-line px-2.5 text-sm hover:border-line-strong">
                     <ExternalLink aria-hidden className="h-3.5 w-3.5" /> Open
