@@ -56,8 +56,11 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
         id: "position",
         header: "Position",
         cell: ({ row: { original: s } }) => (
+          // Each coordinate and the height stay whole; a narrow table breaks only between them.
           <span className="font-mono text-xs">
-            {signed(s.latitudeDeg, "N", "S")}, {signed(s.longitudeDeg, "E", "W")}, {s.elevationM} m
+            <span className="whitespace-nowrap">{signed(s.latitudeDeg, "N", "S")},</span>{" "}
+            <span className="whitespace-nowrap">{signed(s.longitudeDeg, "E", "W")},</span>{" "}
+            <span className="whitespace-nowrap">{s.elevationM} m</span>
           </span>
         ),
       }),
