@@ -6,6 +6,8 @@ import { candidates, escalations, notifications, sites, users } from "@/db/schem
 import { FeedGenerator } from "@/fakes/feed/generator";
 import { toSessionUser, type SessionUser } from "@/lib/auth/roles";
 import { ingestCandidate } from "@/lib/data/ingest";
+import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { signFeedBody } from "@/lib/feed/signature";
 import { uploadSkymap } from "@/lib/data/skymaps";
 import { claimTask, createTasks, moveTask, reportTask } from "@/lib/data/tasks";
 import { transitionCandidate } from "@/lib/data/triage";
@@ -41,12 +43,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
   const siteRows = await db.select().from(sites);
   if (shifters.length === 0 || observers.length === 0 || !coordinator) return 0;
 
-  const generator = new FeedGenerator({
-    seed: "demo-week",
-    scenario: "mixed",
-    sites: demoNetwork.detectors.map((d) => d.code),
-    trackSamples: 120,
-  });
+  const generator = new FeedGenerator({ seed: "demo-week", scenario: "mixed", sites: generatorSites(), trackSamples: 120 });
   const start = now.getTime() - 7 * 24 * 60 * MINUTE;
   const created: Array<{ id: string; receivedAt: number }> = [];
   for (let t = start; t < now.getTime() - 30 * MINUTE; t += (3 + rand() * 6) * 60 * MINUTE) {
@@ -59,6 +56,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
   }
 
   await markPastPagesDelivered(db);
+  await seedRefusedPosts(generatorSites(), now);
 
   // The newest two stay new for the board; the rest were handled by whoever was on shift.
   const pursued: Array<{ candidateId: string; index: number; at: number; shifter: SessionUser }> = [];
@@ -156,5 +154,26 @@ async function attachDemoSkymaps(db: Database, candidateIds: string[]): Promise<
   const picked = [...rows.filter((r) => r.triageState === "pursue").slice(0, 2), ...rows.filter((r) => r.triageState === "new").slice(0, 1)];
   for (const row of picked) {
     await uploadSkymap({ target: { candidateId: row.id }, fileName: "demo-localisation.multiorder.fits.gz", bytes, actorId: null, via: "feed" });
+  }
+}
+
+const generatorSites = () => demoNetwork.detectors.map((d) => d.code);
+
+/**
+ * Three correctly signed posts the feed route refused during the week, sent through the route handler itself
+ * (signed with a key of the seed's own, past clocks), so the dead-letter page shows what a refusal looks like.
+ */
+async function seedRefusedPosts(sites: string[], now: Date): Promise<void> {
+  const key = "demo-seed-signing-key-not-a-secret";
+  let clock = now.getTime() - 3 * 24 * 60 * MINUTE;
+  const handle = createFeedIngestHandler({ secret: () => key, now: () => clock });
+  const generator = new FeedGenerator({ seed: "refused-week", scenario: "malformed", sites, trackSamples: 120 });
+  for (let sent = 0, tries = 0; sent < 3 && tries < 20; tries++) {
+    const post = generator.next(clock);
+    if (post.rawBody.length > 100_000) continue; // the over-long track: too big for a demo database
+    clock += (5 + tries * 37) * MINUTE;
+    const headers = { "content-type": "application/json", ...signFeedBody(key, post.rawBody, clock) };
+    await handle(new Request("http://seed.invalid/api/v1/feed/candidates", { method: "POST", headers, body: post.rawBody }));
+    sent++;
   }
 }
