@@ -7,7 +7,7 @@
  * Times in s (relative to eventTime), frequencies in Hz, chirp mass in the detector frame.
  */
 import { CHIRP_TIME_COEFFICIENT, chirpMassFromLogAmplitude } from "./chirp";
-import { evaluate, gaussNewton, straightLineStart, type Samples } from "./chirp-fit-model";
+import { evaluate, gaussNewton, inverseNormalOf, straightLineStart, type Samples } from "./chirp-fit-model";
 import { fail, succeed, type PhysicsResult } from "./result";
 import { validateTimeTrack, type TimeTrackInput } from "./time-track-validation";
 
@@ -71,8 +71,9 @@ export function fitTimeTrack(track: TimeTrackInput): PhysicsResult<TimeTrackFit>
   if (!refined.ok) return refined;
   const { logA, tc } = refined.value.point;
   const current = refined.value.evaluation;
-  const det = current.naa * current.ntt - current.nat * current.nat;
-  const inverseNormal = [current.ntt / det, -current.nat / det, current.naa / det] as const;
+  // A singular N fails below (after the checks that come first); NaNs carry it there.
+  const inverse = inverseNormalOf(current);
+  const inverseNormal = inverse ?? ([Number.NaN, Number.NaN, Number.NaN] as const);
   // The sandwich errors need the leverages, from N⁻¹. A long track's last pass already summed them with the N⁻¹
   // of the pass before (its leverages are ~2/n, and N moved by well under 1 %); otherwise one more pass.
   const final = withSigma || current.withSandwich ? current : evaluate(samples, fRef, refined.value.point, inverseNormal);
@@ -96,7 +97,7 @@ export function fitTimeTrack(track: TimeTrackInput): PhysicsResult<TimeTrackFit>
   }
   // A = −slope of f^(−8/3) in units of fRef^(−8/3): (G𝓜/c³)^(5/3) = A fRef^(−8/3) / ((256/5) π^(8/3)).
   const chirpMassDetectorFrame = chirpMassFromLogAmplitude(logA - (8 / 3) * Math.log(fRef) - Math.log(CHIRP_TIME_COEFFICIENT));
-  if (!Number.isFinite(chirpMassDetectorFrame) || !(chirpMassDetectorFrame > 0) || !(det > 0)) {
+  if (!Number.isFinite(chirpMassDetectorFrame) || !(chirpMassDetectorFrame > 0) || inverse === null) {
     return fail("non-physical-slope", "fit gives no finite positive chirp mass");
   }
   return succeed({
