@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import type { Transaction } from "@libsql/client";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidateRevisions, candidates, derivedQuantities, followUpTasks, type Candidate } from "@/db/schema";
+import { candidates, followUpTasks, type Candidate } from "@/db/schema";
 import type { DerivedForFeed } from "@/lib/feed/derive-messages";
 import { derivePool } from "@/lib/feed/derive-pool";
 import { createGroupCommitter, type GroupWrite } from "@/lib/feed/group-commit";
@@ -100,8 +100,20 @@ async function writeOne(tx: GroupWrite, pending: PendingRevision): Promise<Inges
   if (!found) return createCandidate(tx, pending);
   const stored = storedAnswerFrom(found, pending.payload);
   if (stored) return stored;
-  const derived = JSON.parse(pending.derived.json) as Record<string, unknown>;
-  return writeRevision(tx.orm, String(found.id), pending.payload, derived, pending.derived, pending.receivedAt);
+  return writeRevision(tx, String(found.id), pending);
+}
+
+/** The stored rows' fields for this post, for a candidate (new or, with its id, already known). */
+function rowFor(pending: PendingRevision, candidateId: string = randomUUID()): NewCandidateRow {
+  return {
+    candidateId,
+    revisionId: randomUUID(),
+    payload: pending.payload,
+    payloadJson: pending.payloadJson ?? JSON.stringify(pending.payload),
+    derivedJson: pending.derived.json,
+    headline: pending.derived.headline,
+    receivedAtMs: pending.receivedAt.getTime(),
+  };
 }
 
 type LookupRow = Record<string, unknown>;
@@ -126,64 +138,29 @@ async function readStoredAnswer(
   return row ? storedAnswerFrom(row, payload) : null;
 }
 
-/** A revision of a candidate already stored: a new current revision, or (lower than the current one) history only. */
-async function writeRevision(
-  tx: Tx,
-  candidateId: string,
-  payload: FeedCandidate,
-  derived: Record<string, unknown>,
-  forFeed: DerivedForFeed,
-  at: Date,
-): Promise<IngestResult> {
-  const [existing] = await tx.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
+/**
+ * A revision of a candidate already stored: a new current revision, or (lower than the current one) history only.
+ * The revision and its derived quantities are stored with the same statements as a new candidate's.
+ */
+async function writeRevision(tx: GroupWrite, candidateId: string, pending: PendingRevision): Promise<IngestResult> {
+  const { payload, receivedAt: at } = pending;
+  const [existing] = await tx.orm.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
   if (!existing) throw new Error("the candidate disappeared inside the write transaction");
-  const { headline } = forFeed;
+  const { headline } = pending.derived;
   const outcome: IngestOutcome = payload.revision > existing.currentRevision ? "revised" : "stale";
-  if (outcome === "revised") await reviseCandidate(tx, existing, payload, headline, at);
-  await insertRevision(tx, existing.id, payload, derived, headline, at);
+  if (outcome === "revised") await reviseCandidate(tx.orm, existing, payload, headline, at);
+  const row = rowFor(pending, existing.id);
+  await tx.sql.execute(insertRevisionStatement(row));
+  await tx.sql.execute(insertDerivedStatement(row));
   if (outcome === "stale") {
-    await appendEvent(tx, {
+    await appendEvent(tx.orm, {
       at,
       kind: eventKinds.candidateRevisionStale,
       candidateId: existing.id,
       data: { revision: payload.revision, current: existing.currentRevision, stage: payload.stage },
     });
   }
-  return { status: 201, outcome, id: existing.id, revision: payload.revision, derivedJson: forFeed.json };
-}
-
-async function insertRevision(
-  tx: Tx,
-  candidateId: string,
-  payload: FeedCandidate,
-  derived: Record<string, unknown>,
-  headline: DerivedHeadline,
-  at: Date,
-): Promise<void> {
-  const [revision] = await tx
-    .insert(candidateRevisions)
-    .values({
-      candidateId,
-      revision: payload.revision,
-      stage: payload.stage,
-      eventTime: new Date(payload.eventTime),
-      receivedAt: at,
-      payload: payload as unknown as Record<string, unknown>,
-    })
-    .returning({ id: candidateRevisions.id });
-  if (!revision) throw new Error("revision insert returned nothing");
-  await tx.insert(derivedQuantities).values({
-    revisionId: revision.id,
-    chirpMassDetectorFrame: headline.chirpMassDetectorFrame,
-    chirpMassDetectorFrameSd: headline.chirpMassDetectorFrameSd,
-    pBns: headline.pBns,
-    pNsbh: headline.pNsbh,
-    pBbh: headline.pBbh,
-    pLowerGap: headline.pLowerGap,
-    redshift: headline.redshift,
-    derived,
-    computedAt: at,
-  });
+  return { status: 201, outcome, id: existing.id, revision: payload.revision, derivedJson: pending.derived.json };
 }
 
 function headlineColumns(payload: FeedCandidate, headline: DerivedHeadline) {
@@ -197,15 +174,7 @@ function headlineColumns(payload: FeedCandidate, headline: DerivedHeadline) {
  */
 async function createCandidate(tx: GroupWrite, pending: PendingRevision): Promise<IngestResult> {
   const { payload, derived, receivedAt } = pending;
-  const row: NewCandidateRow = {
-    candidateId: randomUUID(),
-    revisionId: randomUUID(),
-    payload,
-    payloadJson: pending.payloadJson ?? JSON.stringify(payload),
-    derivedJson: derived.json,
-    headline: derived.headline,
-    receivedAtMs: receivedAt.getTime(),
-  };
+  const row = rowFor(pending);
   await tx.sql.execute(insertCandidateStatement(row));
   const eventId = Number((await tx.sql.execute(insertCreatedEventStatement(row))).rows[0]?.id);
   if (!Number.isSafeInteger(eventId)) throw new Error("event insert returned no id");
