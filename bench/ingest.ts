@@ -49,11 +49,16 @@ function freePort(): Promise<number> {
   });
 }
 
-/** CPU seconds (user + system) a process has used so far, from /proc (Linux; clock ticks of 1/100 s). */
+/** utime + stime of a /proc stat line, in seconds (clock ticks of 1/100 s); the name may hold spaces and ")". */
+function statCpuSeconds(stat: string): number {
+  const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+  return (Number(fields[11]) + Number(fields[12])) / 100;
+}
+
+/** CPU seconds (user + system) a process has used so far, from /proc (Linux). */
 function processCpuSeconds(pid: number): number {
   try {
-    const fields = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]?.split(" ") ?? [];
-    return (Number(fields[11]) + Number(fields[12])) / 100;
+    return statCpuSeconds(readFileSync(`/proc/${pid}/stat`, "utf8"));
   } catch {
     return Number.NaN;
   }
@@ -65,9 +70,7 @@ function threadCpuSeconds(pid: number): Map<string, number> {
   try {
     for (const tid of readdirSync(`/proc/${pid}/task`)) {
       const stat = readFileSync(`/proc/${pid}/task/${tid}/stat`, "utf8");
-      const name = stat.slice(stat.indexOf("(") + 1, stat.lastIndexOf(")"));
-      const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
-      out.set(`${name}/${tid}`, (Number(fields[11]) + Number(fields[12])) / 100);
+      out.set(`${stat.slice(stat.indexOf("(") + 1, stat.lastIndexOf(")"))}/${tid}`, statCpuSeconds(stat));
     }
   } catch {
     // not Linux, or the process is gone
