@@ -46,7 +46,7 @@ export const derivedSchema: JsonSchema = {
       description: "detector-frame merger frequencies",
       properties: {
         iscoHz: num("GW frequency at the Schwarzschild ISCO of the total mass, Hz"),
-        iscoKerrHz: num("GW frequency at the prograde Kerr ISCO of the remnant, Hz"),
+        iscoKerrHz: num("GW frequency at the Kerr ISCO of the remnant for its signed final spin (prograde orbit for finalSpin ≥ 0, retrograde for finalSpin < 0), Hz"),
         ringdownHz: nullable(num("dominant quasinormal-mode frequency, Hz")),
         ringdownDampingTimeS: nullable(num("its damping time, s")),
         finalMass: { type: "object", description: "remnant mass, solar masses, by frame" },

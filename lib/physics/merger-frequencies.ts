@@ -1,7 +1,7 @@
 /**
  * Expected merger frequencies from component masses and aligned spins, in the detector frame (what the detectors
  * see): frequencies computed from detector-frame masses already carry the (1 + z) redshift.
- * Sources: BPT 1972 ISCO; Rezzolla et al. 2008 final spin; Barausse, Morozova & Rezzolla 2012 radiated energy;
+ * Sources: BPT 1972 ISCO; Barausse & Rezzolla 2009 final spin; Barausse, Morozova & Rezzolla 2012 radiated energy;
  * Berti, Cardoso & Will 2006 quasinormal-mode fit. See kerr.ts and remnant.ts.
  */
 import { iscoGravitationalWaveFrequencyHz, schwarzschildIscoFrequencyHz } from "./kerr";
@@ -21,7 +21,7 @@ export interface MergerFrequencies {
   radiatedEnergyFraction: number;
   /** GW frequency at the Schwarzschild ISCO of the total detector-frame mass (Hz). */
   iscoHz: number;
-  /** GW frequency at the prograde Kerr ISCO of the remnant (final detector-frame mass and final spin), Hz. */
+  /** GW frequency at the Kerr ISCO of the remnant (final detector-frame mass and signed final spin: prograde for a spin ≥ 0, retrograde below), Hz. */
   iscoKerrHz: number;
   ringdownHz: number | null;
   ringdownDampingTimeS: number | null;

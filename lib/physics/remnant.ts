@@ -1,7 +1,8 @@
 /**
  * Remnant of an aligned-spin black-hole binary and its dominant ringdown mode.
- * Final spin: Rezzolla et al. 2008 (ApJ 674, L29) aligned-spin formula, identical to Barausse & Rezzolla 2009
- * (ApJ 704, L40) for aligned spins. Radiated energy: Barausse, Morozova & Rezzolla 2012 (ApJ 758, 63).
+ * Final spin: Barausse & Rezzolla 2009 (ApJ 704, L40) formula restricted to aligned spins; its coefficients s4, s5,
+ * t0, t2, t3 are that paper's (an earlier, differently fitted form is Rezzolla et al. 2008, ApJ 674, L29).
+ * Radiated energy: Barausse, Morozova & Rezzolla 2012 (ApJ 758, 63).
  * Ringdown: Berti, Cardoso & Will 2006 (PRD 73, 064030) Table VIII, l = m = 2, n = 0.
  * Masses in solar masses (any one frame, consistently), spins dimensionless and signed along L.
  */
@@ -9,7 +10,7 @@ import { SUN_MASS_TIME_S } from "./constants";
 import { iscoSpecificEnergy } from "./kerr";
 import { fail, succeed, type PhysicsResult } from "./result";
 
-// Rezzolla et al. 2008 / Barausse & Rezzolla 2009 coefficients (from memory; equal-mass non-spinning gives 0.6865).
+// Barausse & Rezzolla 2009 coefficients (from memory; equal-mass non-spinning gives 0.6865).
 const S4 = -0.1229;
 const S5 = 0.4537;
 const T0 = -2.8904;
@@ -46,7 +47,7 @@ function order(mass1: number, mass2: number, chi1: number, chi2: number): Ordere
   };
 }
 
-/** Final dimensionless spin, Rezzolla et al. 2008 aligned-spin formula (ã = (χ1 + χ2 q²)/(1 + q²), q = m_light/m_heavy ≤ 1). */
+/** Final dimensionless spin, Barausse & Rezzolla 2009 formula for aligned spins (ã = (χ1 + χ2 q²)/(1 + q²), q = m_light/m_heavy ≤ 1). */
 export function finalSpinAligned(mass1: number, mass2: number, chi1: number, chi2: number): number {
   const { q, eta, chiHeavy, chiLight } = order(mass1, mass2, chi1, chi2);
   const aTilde = (chiHeavy + chiLight * q * q) / (1 + q * q);

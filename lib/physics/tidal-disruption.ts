@@ -1,7 +1,9 @@
 /**
  * Baryon mass left outside the black hole after a neutron star–black hole merger, Foucart, Hinderer & Nissanke
- * 2018 (PRD 98, 081501(R)) Eq. 4 with α = 0.406, β = 0.139, γ = 0.255, δ = 1.761 (recalled from memory and
- * checked against a public implementation). Masses in solar masses (source frame), radius in km.
+ * 2018 (PRD 98, 081501(R)) Eq. 4 with α = 0.406, β = 0.139, γ = 0.255, δ = 1.761 (recalled from memory).
+ * The exponent is δ, not 1 + δ: a public implementation of Eq. 4 (the documented example of a published
+ * source-property library, reproduced in tests/physics/tidal-disruption.test.ts) needs δ to give its own numbers.
+ * Masses in solar masses (source frame), radius in km.
  */
 import { SUN_MASS_LENGTH_M } from "./constants";
 import { iscoRadius } from "./kerr";
