@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { parseTrustedProxies } from "@/lib/auth/client-address";
 
 const optionalUrl = z.string().url().optional();
 
@@ -19,6 +20,17 @@ const envSchema = z.object({
   /** development only: the fake SMTP server's inbox API, read by the mailbox page */
   DEV_MAILBOX_URL: optionalUrl,
   SEED_DEMO: z.enum(["0", "1"]).optional(),
+  /** proxies whose X-Forwarded-For is believed: comma-separated addresses or CIDR ranges; none by default */
+  TRUSTED_PROXIES: z
+    .string()
+    .optional()
+    .superRefine((text, ctx) => {
+      try {
+        parseTrustedProxies(text);
+      } catch (error) {
+        ctx.addIssue({ code: "custom", message: (error as Error).message });
+      }
+    }),
 });
 
 export type Env = z.infer<typeof envSchema>;

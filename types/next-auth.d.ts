@@ -9,5 +9,7 @@ declare module "next-auth" {
 declare module "next-auth/jwt" {
   interface JWT {
     role?: Role;
+    /** users.session_version when the session began; a different stored value ends the session */
+    sv?: number;
   }
 }

@@ -19,7 +19,13 @@ export function ProfileForm({ name, timeZone }: { name: string; timeZone: string
       const { currentPassword, newPassword, ...rest } = values;
       return apiFetch("/api/v1/me", { method: "PATCH", json: newPassword ? { ...rest, currentPassword, newPassword } : rest });
     },
-    onSuccess: () => {
+    onSuccess: (_answer, values) => {
+      if (values.newPassword) {
+        // A password change ends every session, this one included (lib/auth/options.ts).
+        toast.success("Password changed: sign in again with the new one");
+        window.location.assign("/sign-in?callbackUrl=/settings");
+        return;
+      }
       toast.success("Profile saved");
       form.resetField("currentPassword");
       form.resetField("newPassword");

@@ -17,6 +17,8 @@ export const users = sqliteTable(
     /** Short public handle for avatars and mentions, e.g. initials. */
     initials: text("initials").notNull().default(""),
     disabledAt: instant("disabled_at"),
+    /** Bumped by sign-out, password change or reset, role change and disabling: every older session ends. */
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("users_email_unique").on(t.email)],

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { NextResponse, type NextRequest } from "next/server";
 import type { z, ZodType } from "zod";
+import { loggableError } from "@/db/loggable-error";
 import { resolveRequestUser } from "@/lib/auth/session";
 import { hasRole, type Role, type SessionUser } from "@/lib/auth/roles";
 import { readBodyBytes } from "./body";
@@ -95,6 +96,6 @@ export function errorResponse(error: unknown, requestId: string = randomUUID()):
     if (typeof error.details?.retryAfterSeconds === "number") headers["Retry-After"] = String(error.details.retryAfterSeconds);
     return NextResponse.json({ error: error.message, requestId, ...error.details }, { status: error.status, headers });
   }
-  console.error(`[chirpdesk] request ${requestId} failed`, error);
+  console.error(`[chirpdesk] request ${requestId} failed`, loggableError(error));
   return NextResponse.json({ error: "internal error; quote this request id", requestId }, { status: 500 });
 }

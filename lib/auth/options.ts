@@ -1,56 +1,73 @@
-import { eq } from "drizzle-orm";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { z } from "zod";
-import { getDb } from "@/db";
-import { users, type Role } from "@/db/schema";
 import { getEnv } from "@/lib/env";
-import { verifyPassword } from "./password";
-import { clearAccountFailures, clientAddress, recordFailedSignIn } from "./rate-limit";
+import { endSessions, readSessionState } from "@/lib/data/sessions";
+import { checkCredentials, signInAddress } from "./credentials";
 
-const credentialsSchema = z.object({
-  email: z.string().trim().toLowerCase().email(),
-  password: z.string().min(1).max(200),
-});
+/** Thrown from the jwt callback: next-auth then clears the cookie and reports no session. */
+class SessionEnded extends Error {}
 
-/** next-auth configuration: e-mail and password, JWT sessions that carry the role. */
+/**
+ * next-auth configuration: e-mail and password, JWT sessions that carry the role. Every use of a session re-reads
+ * the person: a disabled account, or a session version bumped by sign-out, password change, reset or role change,
+ * ends it; the role reported is always the stored one.
+ */
 export function buildAuthOptions(): NextAuthOptions {
   return {
     secret: getEnv().NEXTAUTH_SECRET,
     session: { strategy: "jwt", maxAge: 14 * 24 * 3600 },
     pages: { signIn: "/sign-in", error: "/sign-in" },
+    logger: {
+      error(code, metadata) {
+        if (code === "JWT_SESSION_ERROR") return; // an ended session, not a fault
+        console.error(`[next-auth] ${code}`, metadata);
+      },
+      warn(code) {
+        console.warn(`[next-auth] ${code}`);
+      },
+      debug() {},
+    },
     providers: [
       CredentialsProvider({
         name: "E-mail and password",
         credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
         async authorize(raw, req) {
-          const parsed = credentialsSchema.safeParse(raw);
-          if (!parsed.success) return null;
-          const { email, password } = parsed.data;
-          const address = clientAddress(new Headers(req.headers as Record<string, string>));
-          const db = await getDb();
-          const [user] = await db.select().from(users).where(eq(users.email, email)).limit(1);
-          const ok = user && !user.disabledAt && (await verifyPassword(password, user.passwordHash));
-          if (!user || !ok) {
-            await recordFailedSignIn(email, address);
+          const outcome = await checkCredentials(raw, signInAddress(new Headers(req.headers as Record<string, string>)));
+          if (!outcome.ok) {
+            if (outcome.reason === "rate-limited") throw new Error("RateLimited");
             return null;
           }
-          await clearAccountFailures(email);
-          return { id: user.id, email: user.email, name: user.name, role: user.role };
+          const { user } = outcome;
+          return { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion };
         },
       }),
     ],
     callbacks: {
-      jwt({ token, user }) {
-        if (user && "role" in user) token.role = user.role as Role;
+      async jwt({ token, user }) {
+        if (user && "role" in user && "sessionVersion" in user) {
+          token.role = user.role as NonNullable<typeof token.role>;
+          token.sv = user.sessionVersion as number;
+          return token;
+        }
+        const state = token.sub ? await readSessionState(token.sub) : null;
+        if (!state || state.disabled || state.sessionVersion !== token.sv) throw new SessionEnded("session ended");
+        token.role = state.role;
+        token.name = state.name;
         return token;
       },
       session({ session, token }) {
         if (session.user) {
           session.user.id = token.sub ?? "";
           session.user.role = token.role;
+          session.user.name = token.name;
         }
         return session;
+      },
+    },
+    events: {
+      async signOut({ token }) {
+        // A copy of the cookie must not outlive the sign-out.
+        if (token?.sub) await endSessions(token.sub);
       },
     },
   };

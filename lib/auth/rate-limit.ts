@@ -1,32 +1,40 @@
-import { and, count, eq, gte, lt, min } from "drizzle-orm";
+import { and, count, eq, gte, inArray, lt, min } from "drizzle-orm";
 import { getDb } from "@/db";
 import { signInAttempts } from "@/db/schema";
 
-/** Failed sign-ins allowed per bucket within the window (common practice: a handful per quarter hour). */
-export const signInLimits = { windowMs: 15 * 60_000, perAccount: 5, perAddress: 30 } as const;
+/**
+ * Failed sign-ins allowed within the window (common practice: a handful per quarter hour).
+ * - `perAddress`: one client address (the socket's, or a trusted proxy's report of it) failing on any accounts.
+ * - `perAccountAddress`: one address failing on one account.
+ * - `perAccount`: failures on one account from anywhere; past it the account is "under attack" and refuses every
+ *   address that has already failed on it, but never one that has not, so nobody can lock a person out of an
+ *   on-call tool from elsewhere. There is no global bucket.
+ */
+export const signInLimits = { windowMs: 15 * 60_000, perAccount: 20, perAccountAddress: 5, perAddress: 30 } as const;
 
-export const accountBucket = (email: string) => `account:${email.trim().toLowerCase()}`;
+const normaliseEmail = (email: string) => email.trim().toLowerCase();
+export const accountBucket = (email: string) => `account:${normaliseEmail(email)}`;
 export const addressBucket = (address: string) => `address:${address}`;
+export const pairBucket = (email: string, address: string) => `pair:${normaliseEmail(email)} ${address}`;
 
-/** Seconds until the caller may try again, or 0 when neither bucket is full. */
+/** Seconds until this address may try this account again, or 0. */
 export async function signInRetryAfterSeconds(email: string, address: string, now = new Date()): Promise<number> {
   const db = await getDb();
   const since = new Date(now.getTime() - signInLimits.windowMs);
-  const buckets: Array<[string, number]> = [
-    [accountBucket(email), signInLimits.perAccount],
-    [addressBucket(address), signInLimits.perAddress],
-  ];
+  const buckets = [accountBucket(email), addressBucket(address), pairBucket(email, address)];
+  const rows = await db
+    .select({ bucket: signInAttempts.bucket, n: count(), oldest: min(signInAttempts.at) })
+    .from(signInAttempts)
+    .where(and(inArray(signInAttempts.bucket, buckets), gte(signInAttempts.at, since)))
+    .groupBy(signInAttempts.bucket);
+  const of = (bucket: string) => rows.find((r) => r.bucket === bucket);
+  const waitFor = (row: (typeof rows)[number] | undefined) =>
+    Math.max(1, Math.ceil(((row?.oldest?.getTime() ?? now.getTime()) + signInLimits.windowMs - now.getTime()) / 1000));
+  const [account, addr, pair] = buckets.map(of);
   let retryAfter = 0;
-  for (const [bucket, limit] of buckets) {
-    const [row] = await db
-      .select({ n: count(), oldest: min(signInAttempts.at) })
-      .from(signInAttempts)
-      .where(and(eq(signInAttempts.bucket, bucket), gte(signInAttempts.at, since)));
-    if (row && row.n >= limit) {
-      const freesAt = (row.oldest?.getTime() ?? now.getTime()) + signInLimits.windowMs;
-      retryAfter = Math.max(retryAfter, Math.ceil((freesAt - now.getTime()) / 1000));
-    }
-  }
+  if (addr && addr.n >= signInLimits.perAddress) retryAfter = Math.max(retryAfter, waitFor(addr));
+  if (pair && pair.n >= signInLimits.perAccountAddress) retryAfter = Math.max(retryAfter, waitFor(pair));
+  if (pair && account && account.n >= signInLimits.perAccount) retryAfter = Math.max(retryAfter, waitFor(account));
   return retryAfter;
 }
 
@@ -35,18 +43,14 @@ export async function recordFailedSignIn(email: string, address: string, now = n
   await db.insert(signInAttempts).values([
     { bucket: accountBucket(email), at: now },
     { bucket: addressBucket(address), at: now },
+    { bucket: pairBucket(email, address), at: now },
   ]);
   // Old rows are of no further use; prune a little on each write.
   await db.delete(signInAttempts).where(lt(signInAttempts.at, new Date(now.getTime() - 2 * signInLimits.windowMs)));
 }
 
-export async function clearAccountFailures(email: string): Promise<void> {
+/** A successful sign-in forgives that address's failures on the account (others' stay counted). */
+export async function clearAccountFailures(email: string, address: string): Promise<void> {
   const db = await getDb();
-  await db.delete(signInAttempts).where(eq(signInAttempts.bucket, accountBucket(email)));
-}
-
-/** The caller's address as the nearest proxy reports it; "local" when there is none. */
-export function clientAddress(headers: Headers): string {
-  const forwarded = headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || headers.get("x-real-ip") || "local";
+  await db.delete(signInAttempts).where(eq(signInAttempts.bucket, pairBucket(email, address)));
 }

@@ -1,4 +1,4 @@
-import { and, asc, count, eq, isNull, ne } from "drizzle-orm";
+import { and, asc, count, eq, isNull, ne, sql } from "drizzle-orm";
 import { getDb } from "@/db";
 import { users, type User } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
@@ -9,9 +9,9 @@ import type { CreateUserInput, UpdateProfileInput, UpdateUserInput } from "@/lib
 import { appendEvent } from "./events";
 
 /** What lists and forms may see of a person: never the password hash. */
-export type PublicUser = Omit<User, "passwordHash">;
+export type PublicUser = Omit<User, "passwordHash" | "sessionVersion">;
 
-function toPublic({ passwordHash: _hash, ...rest }: User): PublicUser {
+function toPublic({ passwordHash: _hash, sessionVersion: _version, ...rest }: User): PublicUser {
   return rest;
 }
 
@@ -29,11 +29,20 @@ export async function listUsers(): Promise<PublicUser[]> {
   return (await db.select().from(users).orderBy(asc(users.name))).map(toPublic);
 }
 
-/** Coordinators manage everyone but administrators; only administrators make or change administrators. */
-function assertMayManage(actor: SessionUser, targetRole: User["role"], newRole?: User["role"]): void {
+/**
+ * Coordinators manage shifters and observers (and may make new coordinators); only administrators make or change
+ * administrators, and only administrators change, reset or disable another coordinator.
+ */
+function assertMayManage(actor: SessionUser, targetRole: User["role"], newRole?: User["role"], targetId?: string): void {
   if (actor.role === "admin") return;
   if (targetRole === "admin" || newRole === "admin") throw new ApiError(403, "only an administrator can create or change administrators");
+  if (targetId !== undefined && targetId !== actor.id && targetRole === "coordinator") {
+    throw new ApiError(403, "only an administrator can change, reset or disable another coordinator");
+  }
 }
+
+/** Bumps the session version: every session the person holds ends (sign-in again with the new state). */
+const endingSessions = { sessionVersion: sql`${users.sessionVersion} + 1` };
 
 export async function createUser(actor: SessionUser, input: CreateUserInput): Promise<PublicUser> {
   assertMayManage(actor, input.role);
@@ -58,7 +67,7 @@ export async function updateUser(actor: SessionUser, userId: string, patch: Upda
   return db.transaction(async (tx) => {
     const [target] = await tx.select().from(users).where(eq(users.id, userId)).limit(1);
     if (!target) throw new ApiError(404, "user not found");
-    assertMayManage(actor, target.role, patch.role);
+    assertMayManage(actor, target.role, patch.role, target.id);
     if (target.id === actor.id && (patch.disabled || (patch.role && patch.role !== actor.role))) {
       throw new ApiError(409, "you cannot disable yourself or change your own role; ask another coordinator or administrator");
     }
@@ -77,6 +86,7 @@ export async function updateUser(actor: SessionUser, userId: string, patch: Upda
         ...(patch.timeZone ? { timeZone: patch.timeZone } : {}),
         ...(patch.disabled !== undefined ? { disabledAt: patch.disabled ? new Date() : null } : {}),
         ...(passwordHash ? { passwordHash } : {}),
+        ...(passwordHash || patch.disabled || (patch.role && patch.role !== target.role) ? endingSessions : {}),
       })
       .where(eq(users.id, userId))
       .returning();
@@ -105,7 +115,7 @@ export async function updateProfile(actor: SessionUser, patch: UpdateProfileInpu
     .set({
       ...(patch.name ? { name: patch.name, initials: initialsOf(patch.name) } : {}),
       ...(patch.timeZone ? { timeZone: patch.timeZone } : {}),
-      ...(patch.newPassword ? { passwordHash: await hashPassword(patch.newPassword) } : {}),
+      ...(patch.newPassword ? { passwordHash: await hashPassword(patch.newPassword), ...endingSessions } : {}),
     })
     .where(eq(users.id, actor.id))
     .returning();

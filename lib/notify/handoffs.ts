@@ -1,3 +1,4 @@
+import { loggableMessage } from "@/db/loggable-error";
 /**
  * End-of-shift handoffs are the review area's (lib/review/handoff.ts, `queueDueHandoffs(now)`); the worker calls it
  * each cycle. Loaded lazily so the worker runs before, and without, that module.
@@ -25,6 +26,6 @@ export async function queueHandoffs(now: Date, log: (m: string) => void): Promis
   try {
     await fn(now);
   } catch (error) {
-    log(`queueDueHandoffs failed: ${error instanceof Error ? error.message : String(error)}`);
+    log(`queueDueHandoffs failed: ${loggableMessage(error)}`);
   }
 }

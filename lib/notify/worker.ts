@@ -1,3 +1,4 @@
+import { loggableMessage } from "@/db/loggable-error";
 import { randomUUID } from "node:crypto";
 import { hostname } from "node:os";
 import type { Notification } from "@/db/schema";
@@ -137,7 +138,7 @@ export function createWorker(options: WorkerOptions = {}) {
     const rows = await claimDueNotifications(workerId, new Date(now()), leaseMs, room);
     for (const row of rows) {
       const sending: Promise<void> = sendRow(row, run)
-        .catch((error: unknown) => log(`send of ${row.id} failed: ${String(error)}`))
+        .catch((error: unknown) => log(`send of ${row.id} failed: ${loggableMessage(error)}`))
         .finally(() => {
           inFlight.delete(sending);
           wake?.();
@@ -156,7 +157,7 @@ export function createWorker(options: WorkerOptions = {}) {
         failures = 0;
       } catch (error) {
         failures += 1;
-        log(`cycle failed (${failures}): ${error instanceof Error ? error.message : String(error)}`);
+        log(`cycle failed (${failures}): ${loggableMessage(error)}`);
       }
       if (!running || busy) continue;
       await new Promise<void>((resolve) => {

@@ -1,3 +1,4 @@
+import { loggableError } from "@/db/loggable-error";
 import type { AppEvent } from "@/db/schema";
 
 /** An event as the stream and the polling fallback send it: times in epoch milliseconds. */
@@ -40,6 +41,8 @@ export interface EventStreamOptions {
   batchSize?: number;
   /** how long a browser waits before reconnecting after a drop */
   retryMs?: number;
+  /** events the reader may not see are skipped (the cursor still moves past them) */
+  visible?: (event: AppEvent) => boolean;
 }
 
 const encoder = new TextEncoder();
@@ -91,8 +94,9 @@ export function createEventStream(options: EventStreamOptions): ReadableStream<U
             const batch = await options.readEventsAfter(last, batchSize);
             if (closed) break;
             for (const event of batch) {
-              write(sseFrame(toWireEvent(event)));
               last = event.id;
+              if (options.visible && !options.visible(event)) continue;
+              write(sseFrame(toWireEvent(event)));
               lastWriteAt = Date.now();
             }
             if (batch.length === batchSize) continue;
@@ -104,7 +108,7 @@ export function createEventStream(options: EventStreamOptions): ReadableStream<U
           }
         } catch (error) {
           if (!closed) {
-            console.error("[chirpdesk] event stream failed; the client will reconnect", error);
+            console.error("[chirpdesk] event stream failed; the client will reconnect", loggableError(error));
             write(": stream error; reconnect\n\n");
           }
         } finally {

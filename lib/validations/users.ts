@@ -45,7 +45,8 @@ export const updateProfileSchema = z
     newPassword: passwordSchema,
   })
   .partial()
-  .refine((v) => !v.newPassword || v.currentPassword, { message: "give your current password", path: ["currentPassword"] });
+  .refine((v) => !v.newPassword || v.currentPassword, { message: "give your current password", path: ["currentPassword"] })
+  .refine((v) => v.name !== undefined || v.timeZone !== undefined || v.newPassword !== undefined, "nothing to change: give name, timeZone or newPassword");
 export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;
 
 export const createTokenSchema = z.object({ label: z.string().trim().min(1).max(60) });

@@ -12,4 +12,20 @@ describe("the sign-in page's return path", () => {
       expect(localPathOr(path, "/"), String(path)).toBe("/");
     }
   });
+
+  it("refuses paths a browser turns into another site once it drops tabs and newlines", () => {
+    // "?callbackUrl=/%09/evil.example" arrives decoded as "/\t/evil.example"; a browser reads it as "//evil.example".
+    for (const path of ["/\t/evil.example", "/\n/evil.example", "/\r\n/evil.example", "/%0a", "/\u0000x", "/ /\\evil"]) {
+      const kept = localPathOr(path, "/");
+      expect(kept === "/" || !new URL(kept, "http://a.test").host.includes("evil"), JSON.stringify(path)).toBe(true);
+      expect(kept, JSON.stringify(path)).not.toMatch(/[\u0000-\u001f]/);
+    }
+    expect(localPathOr("/\t/evil.example", "/")).toBe("/");
+    expect(localPathOr("/a\nb", "/")).toBe("/");
+  });
+
+  it("answers the normalised path, so what is redirected to is what was checked", () => {
+    expect(localPathOr("/a/../triage?x=1#top", "/")).toBe("/triage?x=1#top");
+    expect(localPathOr("/sites/a b", "/")).toBe("/sites/a%20b");
+  });
 });

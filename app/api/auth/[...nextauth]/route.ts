@@ -1,7 +1,9 @@
 import NextAuth from "next-auth";
 import { NextResponse, type NextRequest } from "next/server";
 import { buildAuthOptions } from "@/lib/auth/options";
-import { clientAddress, signInRetryAfterSeconds } from "@/lib/auth/rate-limit";
+import { signInAddress } from "@/lib/auth/credentials";
+import { signInRetryAfterSeconds } from "@/lib/auth/rate-limit";
+import { readSignInEmail } from "@/lib/auth/sign-in-body";
 
 type NextAuthContext = { params: Promise<{ nextauth: string[] }> };
 
@@ -11,13 +13,16 @@ function nextAuth(req: NextRequest, ctx: NextAuthContext) {
 
 export const GET = nextAuth;
 
-/** Credentials posts are rate-limited per account and address before next-auth sees them: a clear 429. */
+/**
+ * Credentials posts are rate-limited per client address and account before next-auth sees them: a clear 429.
+ * The e-mail is read from the body the way next-auth reads it (JSON or form), so no body type skips the limit;
+ * the check inside authorize() stays as the backstop.
+ */
 export async function POST(req: NextRequest, ctx: NextAuthContext) {
   const { nextauth } = await ctx.params;
   if (nextauth.join("/") === "callback/credentials") {
-    const form = await req.clone().formData().catch(() => null);
-    const email = String(form?.get("email") ?? "");
-    const retryAfterSeconds = await signInRetryAfterSeconds(email, clientAddress(req.headers));
+    const email = await readSignInEmail(req.clone());
+    const retryAfterSeconds = await signInRetryAfterSeconds(email, signInAddress(req.headers));
     if (retryAfterSeconds > 0) {
       const url = new URL("/sign-in", req.nextUrl.origin);
       url.searchParams.set("error", "RateLimited");

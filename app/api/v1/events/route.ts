@@ -1,6 +1,7 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { latestEventId, listEventsAfter } from "@/lib/data/events";
+import { mayReceive } from "@/lib/events/audience";
 import { createEventStream, resumePoint, toWireEvent } from "@/lib/triage/event-stream";
 
 export const dynamic = "force-dynamic";
@@ -10,17 +11,19 @@ export const dynamic = "force-dynamic";
  * `?after=`; without either, from now), then new ones as they are written, with heartbeats.
  * With `?mode=poll`: one JSON page `{ events, lastId }`, the fallback when a stream cannot stay open.
  */
-export const GET = handler({ roles: can.read }, async ({ req }) => {
+export const GET = handler({ roles: can.read }, async ({ req, user }) => {
   const after = resumePoint(req.headers, req.nextUrl.searchParams);
   if (req.nextUrl.searchParams.get("mode") === "poll") {
     if (after === null) return { events: [], lastId: await latestEventId() };
-    const events = (await listEventsAfter(after, 500)).map(toWireEvent);
-    return { events, lastId: events.at(-1)?.id ?? after };
+    const read = await listEventsAfter(after, 500);
+    const events = read.filter((e) => mayReceive(user, e)).map(toWireEvent);
+    return { events, lastId: read.at(-1)?.id ?? after };
   }
   const stream = createEventStream({
     afterId: after ?? (await latestEventId()),
     signal: req.signal,
     readEventsAfter: listEventsAfter,
+    visible: (event) => mayReceive(user, event),
     pollMs: Number(process.env.EVENT_STREAM_POLL_MS) || 750,
   });
   return new Response(stream, {
