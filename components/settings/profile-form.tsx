@@ -23,7 +23,7 @@ export function ProfileForm({ name, timeZone }: { name: string; timeZone: string
       if (values.newPassword) {
         // A password change ends every session, this one included (lib/auth/options.ts).
         toast.success("Password changed: sign in again with the new one");
-        window.location.assign("/sign-in?callbackUrl=/settings");
+        router.push("/sign-in?callbackUrl=/settings");
         return;
       }
       toast.success("Profile saved");

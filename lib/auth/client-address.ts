@@ -1,6 +1,6 @@
 import { BlockList, isIP } from "node:net";
 
-/** The header server/peer-address.cjs stamps with the socket's address; trusted only when that preload says so. */
+/** The header server/peer-address.mjs stamps with the socket's address; trusted only when that preload says so. */
 const PEER_HEADER = "x-chirpdesk-peer";
 
 /** Strips the IPv4-mapped IPv6 prefix so "::ffff:10.0.0.1" and "10.0.0.1" are one client. */

@@ -23,7 +23,7 @@ export function signInAddress(headers: Headers): string {
   const address = clientAddress(headers, trusted.list);
   if (address.startsWith("unknown:") && !warnedUnstamped && process.env.NODE_ENV === "production") {
     warnedUnstamped = true;
-    console.warn("[chirpdesk] the server was started without server/peer-address.cjs; sign-in limits cannot see client addresses");
+    console.warn("[chirpdesk] the server was started without server/peer-address.mjs; sign-in limits cannot see client addresses");
   }
   return address;
 }

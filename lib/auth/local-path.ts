@@ -7,7 +7,6 @@ const PROBE_ORIGIN = "http://chirpdesk.invalid";
  * characters are refused outright (a newline in a Location header is a server error, not a redirect).
  */
 export function localPathOr(path: string | undefined, fallback: string): string {
-  // eslint-disable-next-line no-control-regex
   if (!path || !path.startsWith("/") || /[\u0000-\u001f\u007f\\]/.test(path)) return fallback;
   let url: URL;
   try {

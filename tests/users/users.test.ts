@@ -3,7 +3,6 @@ import { NextRequest } from "next/server";
 import { GET as listUsersRoute, POST as createUserRoute } from "@/app/api/v1/users/route";
 import { PATCH as updateUserRoute } from "@/app/api/v1/users/[id]/route";
 import { createApiToken } from "@/lib/auth/api-tokens";
-import { recordFailedSignIn, signInLimits, signInRetryAfterSeconds } from "@/lib/auth/rate-limit";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 let testDb: TestDatabase;
