@@ -9,7 +9,7 @@ import { pagingKeys } from "./query-keys";
 import type { FailedNotification } from "./types";
 import { ZonedTime } from "./zoned-time";
 
-/** Coordinators' view of messages the worker gave up on; one click puts a message back in the outbox. */
+/** Coordinators' view of messages the worker gave up on (and pages still failing); one click puts a message back in the outbox. */
 export function FailedDeliveries({ timeZone }: { timeZone: string }) {
   const queryClient = useQueryClient();
   const failed = useQuery({
@@ -60,6 +60,11 @@ export function FailedDeliveries({ timeZone }: { timeZone: string }) {
                   {n.channel === "push" ? <Smartphone aria-hidden className="h-3.5 w-3.5" /> : <Mail aria-hidden className="h-3.5 w-3.5" />}
                   {n.channel} · {n.attempts} tries
                 </span>
+                {n.stillRetrying ? (
+                  <span className="block text-xs text-warn" data-testid="still-retrying">
+                    still retrying; next step escalated
+                  </span>
+                ) : null}
               </td>
               <td className="max-w-sm py-2 pr-3 font-mono text-xs text-muted">{n.lastError ?? "—"}</td>
               <td className="py-2 pr-3 text-xs">

@@ -9,4 +9,4 @@ export const pagingKeys = {
 };
 
 /** Event kinds after which the signed-in person's notification list may have changed. */
-export const notificationEventKinds = new Set(["page.queued", "escalation.fired", "notification.failed", "candidate.triaged"]);
+export const notificationEventKinds = new Set(["page.queued", "escalation.fired", "notification.failed", "page.failing", "candidate.triaged"]);

@@ -43,6 +43,8 @@ export interface FakeSmtp {
   /** Origin of the JSON inbox API: GET/DELETE /messages, GET /messages/:id, GET/PUT /outage. */
   httpUrl: string;
   messages(filter?: MailFilter): StoredMail[];
+  /** Messages whose Message-ID arrived before: a sender's repeat of one message (after a crash), not a new one. */
+  repeats(): StoredMail[];
   clear(): void;
   /** Resolves once the outage state is in effect (for `refuse-connections`, once the port is closed or listening again). */
   setDown(down: boolean, options?: { mode?: OutageMode }): Promise<void>;
@@ -140,6 +142,7 @@ export async function startFakeSmtp(options: FakeSmtpOptions = {}): Promise<Fake
     smtpPort,
     host,
     messages,
+    repeats: () => stored.filter((m, i) => m.messageId !== null && stored.findIndex((o) => o.messageId === m.messageId) < i),
     clear: () => {
       stored = [];
     },

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, isNull, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, isNull, lt, ne, or, sql } from "drizzle-orm";
 import { getDb } from "@/db";
 import { notifications, users, type Channel, type NotificationStatus } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
@@ -101,16 +101,26 @@ export interface FailedNotification {
   attempts: number;
   lastError: string | null;
   createdAt: string;
+  /** a page for an unanswered candidate that keeps failing but is still being retried */
+  stillRetrying: boolean;
 }
 
-/** Messages the worker gave up on, newest first (coordinators see these, so nothing fails silently). */
-export async function listFailedNotifications(limit = 100): Promise<FailedNotification[]> {
+/**
+ * Messages the worker gave up on, and pages still retrying after repeated failures, newest first (coordinators
+ * see these, so nothing fails silently).
+ */
+export async function listFailedNotifications(limit = 100, failingAttempts = 3): Promise<FailedNotification[]> {
   const db = await getDb();
   const rows = await db
     .select({ n: notifications, u: { id: users.id, name: users.name, email: users.email } })
     .from(notifications)
     .leftJoin(users, eq(users.id, notifications.userId))
-    .where(eq(notifications.status, "failed"))
+    .where(
+      or(
+        eq(notifications.status, "failed"),
+        and(inArray(notifications.status, ["pending", "sending"]), inArray(notifications.kind, ["page", "escalation"]), gte(notifications.attempts, failingAttempts)),
+      ),
+    )
     .orderBy(desc(notifications.createdAt))
     .limit(limit);
   return rows.map(({ n, u }) => ({
@@ -123,6 +133,7 @@ export async function listFailedNotifications(limit = 100): Promise<FailedNotifi
     attempts: n.attempts,
     lastError: n.lastError,
     createdAt: n.createdAt.toISOString(),
+    stillRetrying: n.status !== "failed",
   }));
 }
 

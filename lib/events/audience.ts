@@ -13,6 +13,7 @@ export function mayReceive(user: Pick<SessionUser, "id" | "role">, event: Pick<A
     case eventKinds.settingsChanged:
       return hasRole(user, can.manageSettings);
     case eventKinds.notificationFailed:
+    case eventKinds.pageFailing:
       return hasRole(user, can.readDeadLetters) || event.data?.userId === user.id;
     default:
       return true;

@@ -18,6 +18,7 @@ export const eventKinds = {
   pageQueued: "page.queued", // data: { userIds, channels, reason: "new-candidate" | "escalation" | … }
   escalationFired: "escalation.fired", // data: { step, target }
   notificationFailed: "notification.failed", // data: { notificationId, channel, userId }
+  pageFailing: "page.failing", // a page still retrying after repeated failures; data: { notificationId, channel, userId, attempts, error, escalatedStep }
   skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
   reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }
   siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }

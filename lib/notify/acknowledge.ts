@@ -2,6 +2,7 @@ import { and, eq, isNull } from "drizzle-orm";
 import { getDb } from "@/db";
 import { ackTokens, candidates, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
+import { can, hasRole } from "@/lib/auth/roles";
 import { loadSessionUser } from "@/lib/auth/session";
 import { transitionCandidate } from "@/lib/data/triage";
 import { ackLinkSecret, verifyAckToken } from "./ack-links";
@@ -75,7 +76,7 @@ export type AckResult =
 /**
  * Uses a one-click link: checks signature and expiry, spends the single-use row, then acknowledges through the
  * triage domain (whose hook stops escalation in the same transaction). A link for a candidate someone already
- * acknowledged answers "already" and is spent too. An unexpected failure gives the link back.
+ * acknowledged answers "already" and is spent too. A refusal (403) or an unexpected failure gives the link back.
  */
 export async function acknowledgeWithLink(token: string, via: "email" | "push", now = new Date()): Promise<AckResult> {
   const secret = ackLinkSecret();
@@ -87,6 +88,8 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
   if (check.usedAt) return fail("used");
   const actor = await loadSessionUser(check.claims.userId);
   if (!actor) return fail("forged");
+  // A refused attempt (say the owner was demoted since the page) leaves the link unspent: spend it only on success.
+  if (!hasRole(actor, can.triage)) return fail("not-allowed");
   const spent = await db.update(ackTokens).set({ usedAt: now }).where(and(eq(ackTokens.id, check.claims.id), isNull(ackTokens.usedAt))).returning({ id: ackTokens.id });
   if (spent.length === 0) return fail("used");
   const candidateId = check.claims.candidateId;
@@ -98,9 +101,13 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
     }
   } catch (error) {
     // 403: the role cannot triage; 409/422: someone moved it first — then it is "already", below.
-    if (error instanceof ApiError && error.status === 403) return fail("not-allowed");
+    const giveBack = () => db.update(ackTokens).set({ usedAt: null }).where(eq(ackTokens.id, check.claims.id));
+    if (error instanceof ApiError && error.status === 403) {
+      await giveBack();
+      return fail("not-allowed");
+    }
     if (!(error instanceof ApiError && (error.status === 409 || error.status === 422))) {
-      await db.update(ackTokens).set({ usedAt: null }).where(eq(ackTokens.id, check.claims.id));
+      await giveBack();
       throw error;
     }
   }

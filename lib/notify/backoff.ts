@@ -7,6 +7,15 @@ export interface BackoffOptions {
 export const defaultBackoff: BackoffOptions = { baseMs: 5_000, capMs: 10 * 60_000 };
 
 /**
+ * Pages for a candidate nobody has answered yet: someone must be woken, so retries never stop and never wait more
+ * than 30 s, which bounds the delay after an outage ends (issue: every page within 60 s of recovery).
+ */
+export const pageBackoff: BackoffOptions = { baseMs: 2_000, capMs: 30_000 };
+
+/** Failed attempts of one page after which the next escalation step fires at once instead of on its timer. */
+export const PAGE_FAILING_ATTEMPTS = 3;
+
+/**
  * "Full jitter": a uniform delay in [0, min(cap, base·2^(attempt−1))), so retries of many rows after an outage
  * spread out instead of arriving together (M. Brooker, "Exponential Backoff And Jitter", AWS Architecture Blog, 2015).
  * `attempt` counts from 1; `random` is in [0, 1).

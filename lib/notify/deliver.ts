@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db";
 import { candidates, pushSubscriptions, users, type Notification, type PagingPreferences } from "@/db/schema";
 import { onCallPrimaryUntil } from "@/lib/data/rota";
-import { retryDelayMs, type BackoffOptions } from "./backoff";
+import { PAGE_FAILING_ATTEMPTS, pageBackoff, retryDelayMs, type BackoffOptions } from "./backoff";
 import { renderEmail } from "./channels/email-content";
 import type { EmailSender } from "./channels/email";
 import { topicFor, type PushSender } from "./channels/push";
@@ -38,17 +38,24 @@ export function muteReason(
   return null;
 }
 
+/**
+ * A transient failure. Pages (deliver() only gets this far while their candidate is still unanswered) retry until
+ * delivered, acknowledged or decided, with backoff capped at 30 s, and at PAGE_FAILING_ATTEMPTS ask for the next
+ * escalation step at once; other messages give up after the attempt limit.
+ */
 function retryOrFail(row: Notification, ctx: DeliveryContext, error: string, payload?: NotificationPayload): Outcome {
-  if (row.attempts >= ctx.maxAttempts) return { status: "failed", error: `gave up after ${row.attempts} attempts: ${error}`, payload };
-  const nextAttemptAt = new Date(ctx.now.getTime() + retryDelayMs(row.attempts, ctx.random(), ctx.backoff));
-  return { status: "retry", error, nextAttemptAt, payload };
+  const isPage = pageKinds.has(row.kind) && row.candidateId !== null;
+  if (!isPage && row.attempts >= ctx.maxAttempts) return { status: "failed", error: `gave up after ${row.attempts} attempts: ${error}`, payload };
+  const backoff = isPage ? { baseMs: Math.min(ctx.backoff.baseMs, pageBackoff.baseMs), capMs: Math.min(ctx.backoff.capMs, pageBackoff.capMs) } : ctx.backoff;
+  const nextAttemptAt = new Date(ctx.now.getTime() + retryDelayMs(row.attempts, ctx.random(), backoff));
+  return { status: "retry", error, nextAttemptAt, payload, escalateNow: isPage && row.attempts === PAGE_FAILING_ATTEMPTS };
 }
 
 /** Sends one leased row on its channel and says what became of it. Never throws for a channel's failure. */
 export async function deliver(row: Notification, ctx: DeliveryContext): Promise<Outcome> {
   const db = await getDb();
   const payload: NotificationPayload = { tag: `n-${row.id}`, ...(row.payload as NotificationPayload | null) };
-  if (row.attempts > ctx.maxAttempts) return { status: "failed", error: `abandoned ${row.attempts - 1} times by crashed workers` };
+  if (row.attempts > ctx.maxAttempts && !pageKinds.has(row.kind)) return { status: "failed", error: `abandoned ${row.attempts - 1} times by crashed workers` };
   if (!row.userId) return { status: "failed", error: "row has no recipient" };
   const [user] = await db.select().from(users).where(eq(users.id, row.userId)).limit(1);
   if (!user || user.disabledAt) return { status: "skipped", reason: "recipient is no longer active" };

@@ -5,7 +5,7 @@ import type { Notification } from "@/db/schema";
 import { defaultBackoff, type BackoffOptions } from "./backoff";
 import { createEmailSender, type EmailSender } from "./channels/email";
 import { createPushSender, type PushSender } from "./channels/push";
-import { claimDueNotifications, recordOutcome, type Outcome } from "./claim";
+import { claimDueNotifications, PAGE_LEASE_MS, recordOutcome, type Outcome } from "./claim";
 import { deliver, type DeliveryContext } from "./deliver";
 import { fireDueEscalations } from "./escalate";
 import { queueHandoffs } from "./handoffs";
@@ -76,6 +76,20 @@ export function createWorker(options: WorkerOptions = {}) {
   let wake: (() => void) | null = null;
   let handoffsCheckedAt = Number.NEGATIVE_INFINITY;
 
+  /** A send that outlives its lease would race the worker that takes the row over: cut it off first. */
+  function withinLease(sending: Promise<Outcome>, row: Notification): Promise<Outcome> {
+    const lease = row.kind === "page" || row.kind === "escalation" ? Math.min(leaseMs, PAGE_LEASE_MS) : leaseMs;
+    const limitMs = Math.max(1_000, lease - 5_000);
+    let timer: NodeJS.Timeout | undefined;
+    const cutOff = new Promise<Outcome>((resolve) => {
+      timer = setTimeout(
+        () => resolve({ status: "retry", error: `send took over ${limitMs} ms; tried again (same message id)`, nextAttemptAt: new Date(now() + 1_000) }),
+        limitMs,
+      );
+    });
+    return Promise.race([sending, cutOff]).finally(() => clearTimeout(timer));
+  }
+
   async function sendRow(row: Notification, run: WorkerRun): Promise<void> {
     const ctx: DeliveryContext = {
       ...senders,
@@ -86,7 +100,7 @@ export function createWorker(options: WorkerOptions = {}) {
     };
     let outcome: Outcome;
     try {
-      outcome = await deliver(row, ctx);
+      outcome = await withinLease(deliver(row, ctx), row);
     } catch (error) {
       outcome = { status: "retry", error: `worker error: ${String(error)}`, nextAttemptAt: new Date(now() + 5_000) };
     }

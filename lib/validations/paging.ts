@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { isP256PublicKey, isPushAuthSecret } from "./push-keys";
 import { stages } from "@/db/schema/candidate-values";
 
 /** Local wall-clock time "HH:mm" (24 h). */
@@ -92,8 +93,8 @@ export const pushSubscribeSchema = z.object({
   endpoint: z.url({ protocol: /^https?$/ }).max(2048),
   expirationTime: z.number().nullable().optional(),
   keys: z.object({
-    p256dh: z.string().regex(/^[A-Za-z0-9_-]{80,100}={0,2}$/, "a base64url P-256 public key"),
-    auth: z.string().regex(/^[A-Za-z0-9_-]{16,24}={0,2}$/, "a base64url 16-byte secret"),
+    p256dh: z.string().max(100).refine(isP256PublicKey, "not a base64url uncompressed point on P-256 (65 bytes, 0x04 first)"),
+    auth: z.string().max(30).refine(isPushAuthSecret, "not a base64url 16-byte secret"),
   }),
   label: z.string().trim().max(80).default(""),
 });

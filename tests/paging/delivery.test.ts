@@ -83,7 +83,7 @@ describe("retries", () => {
       h.clock.advance(60_000);
     }
     expect(h.smtp.messages()).toHaveLength(0);
-    const waiting = (await h.rows({ channel: "email" })).filter((r) => posted.some((p) => p.id === r.candidateId));
+    const waiting = (await h.rows({ channel: "email", userId: h.people.primary.id })).filter((r) => posted.some((p) => p.id === r.candidateId));
     expect(waiting.length).toBeGreaterThanOrEqual(posted.length);
     expect(waiting.every((r) => r.status === "pending" && r.attempts >= 2 && (r.lastError ?? "").includes("421"))).toBe(true);
 
@@ -120,22 +120,32 @@ describe("retries", () => {
     expect((await h.rows({ userId: h.people.primary.id, channel: "push", candidateId: candidate.id }))[0]?.status).toBe("sent");
   });
 
-  it("gives up after the attempt limit: the row is failed, an event says so, coordinators see it", async () => {
+  it("keeps paging through an outage: never gives up on an unanswered candidate, escalates at once, shows coordinators", async () => {
     await h.smtp.setDown(true, { mode: "reply-421" });
     const candidate = await h.postCandidate();
     const worker = h.worker({ maxAttempts: 3 });
-    for (let i = 0; i < 5; i++) {
+    for (let i = 0; i < 6; i++) {
       await worker.runOnce();
-      h.clock.advance(10 * 60_000);
+      h.clock.advance(31_000);
     }
-    await h.smtp.setDown(false);
     const [row] = await h.rows({ userId: h.people.primary.id, channel: "email", candidateId: candidate.id });
-    expect(row).toMatchObject({ status: "failed", attempts: 3 });
-    expect(row?.lastError).toMatch(/gave up after 3 attempts/);
-    const failedEvents = await (await getDb()).select().from(events).where(eq(events.kind, "notification.failed"));
-    expect(failedEvents.map((e) => (e.data as { notificationId: string }).notificationId)).toContain(row?.id);
+    // past the attempt limit of other messages, and still waiting for the next try, at most 30 s away
+    expect(row).toMatchObject({ status: "pending" });
+    expect(row!.attempts).toBeGreaterThan(3);
+    expect(row!.nextAttemptAt.getTime() - h.clock.now()).toBeLessThanOrEqual(30_000);
+    // the backup was paged long before the policy's 5 minutes (6 × 31 s here)
+    const steps = await (await getDb()).select().from(escalations).where(eq(escalations.candidateId, candidate.id));
+    expect(steps.find((s) => s.step === 1)?.status).toBe("fired");
+    expect((await h.rows({ userId: h.people.backup.id, candidateId: candidate.id })).length).toBeGreaterThan(0);
+    const failing = await (await getDb()).select().from(events).where(eq(events.kind, "page.failing"));
+    expect(failing.some((e) => e.candidateId === candidate.id)).toBe(true);
     const { listFailedNotifications } = await import("@/lib/data/paging");
-    expect((await listFailedNotifications()).map((f) => f.id)).toContain(row?.id);
-    expect(h.smtp.messages({ to: h.people.primary.email })).toHaveLength(0);
+    const shown = (await listFailedNotifications()).find((f) => f.id === row?.id);
+    expect(shown?.stillRetrying).toBe(true);
+    await h.smtp.setDown(false);
+    await worker.runOnce();
+    h.clock.advance(31_000);
+    await worker.runOnce();
+    expect(h.smtp.messages({ to: h.people.primary.email }).filter((m) => m.subject.includes(candidate.externalId))).toHaveLength(1);
   });
 });

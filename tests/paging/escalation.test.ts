@@ -2,7 +2,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { candidates, escalations, events } from "@/db/schema";
+import { candidates, escalations, events, users } from "@/db/schema";
 import { createAckConfirmHandler } from "@/lib/notify/ack-route";
 import { describeAckLink } from "@/lib/notify/acknowledge";
 import { ackLinkIn, startHarness, type Device, type Harness } from "./support/harness";
@@ -195,5 +195,16 @@ describe("acknowledge links", () => {
     expect(((await again.json()) as { reason: string }).reason).toBe("used");
     const page = await describeAckLink(token, new Date(h.clock.now()));
     expect(page).toMatchObject({ state: "refused", reason: "used" });
+  });
+
+  it("a refused attempt (owner demoted since the page) does not spend the link; it works once the role is back", async () => {
+    const token = await freshLink();
+    const db = await getDb();
+    await db.update(users).set({ role: "observer" }).where(eq(users.id, h.people.primary.id));
+    const refused = await confirm(token);
+    expect(refused.status).toBe(403);
+    expect(((await refused.json()) as { reason: string }).reason).toBe("not-allowed");
+    await db.update(users).set({ role: "shifter" }).where(eq(users.id, h.people.primary.id));
+    expect((await confirm(token)).status).toBe(200);
   });
 });

@@ -41,6 +41,9 @@ export function createEmailSender(options: { smtpUrl: string; from: string; time
           text: mail.text,
           html: mail.html,
           headers: { "X-Chirpdesk-Notification": mail.notificationId },
+          // One Message-ID per outbox row (RFC 5322 Section 3.6.4): a resend after a worker crash is the same
+          // message, so a receiver (and the fake SMTP server) can tell a repeat from a second page.
+          messageId: `<${mail.notificationId}@notification.chirpdesk.invalid>`,
         });
         return { ok: true, messageId: info.messageId };
       } catch (error) {

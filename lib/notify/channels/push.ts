@@ -1,5 +1,6 @@
 import https from "node:https";
 import net from "node:net";
+import { isP256PublicKey, isPushAuthSecret } from "@/lib/validations/push-keys";
 import webpush from "web-push";
 import type { WebPushError } from "web-push";
 
@@ -48,6 +49,10 @@ export function createPushSender(vapid: VapidConfig, options: { timeoutMs?: numb
   const timeout = options.timeoutMs ?? 10_000;
   return {
     async send(target: PushTarget, payload: string, opts: PushSendOptions): Promise<PushAttempt> {
+      // Keys stored before they were checked at subscription: no retry can encrypt to them, so the subscription ends.
+      if (!isP256PublicKey(target.p256dh) || !isPushAuthSecret(target.auth)) {
+        return { ok: false, gone: true, permanent: true, status: null, error: "subscription keys are not a valid P-256 key and 16-byte secret" };
+      }
       try {
         const result = await webpush.sendNotification({ endpoint: target.endpoint, keys: { p256dh: target.p256dh, auth: target.auth } }, payload, {
           vapidDetails: vapid,
