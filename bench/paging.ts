@@ -2,6 +2,9 @@
 // process running, the fakes listening; prints the time from each ingest response to the push message stored
 // by the fake push service and to the e-mail accepted by the fake SMTP server (p50, p99). Target p99 < 1.5 s.
 // Options: --count N (200), --rate per-second (2), --poll worker poll ms (the worker's default 200).
+// Then an outage run (bench/paging-outage.ts): the fake SMTP server and push service down for --outage seconds
+// (90; the issue's worst case is 600) while --outage-count candidates (40) arrive; prints pages marked failed,
+// the delay of each page after recovery (target: all within 60 s), and repeats.
 import { spawn } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -17,8 +20,17 @@ import { startFakeSmtp } from "@/fakes/smtp/server";
 import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { pagingPayload } from "@/tests/paging/support/payload";
+import { runOutage } from "./paging-outage";
 
-const { values } = parseArgs({ options: { count: { type: "string", default: "200" }, rate: { type: "string", default: "2" }, poll: { type: "string" } } });
+const { values } = parseArgs({
+  options: {
+    count: { type: "string", default: "200" },
+    rate: { type: "string", default: "2" },
+    poll: { type: "string" },
+    outage: { type: "string", default: "90" },
+    "outage-count": { type: "string", default: "40" },
+  },
+});
 const count = Number(values.count);
 const intervalMs = 1000 / Number(values.rate);
 
@@ -95,6 +107,18 @@ console.log(row("ingest response (feed route)", ingestMs));
 console.log(row("ingest response → push stored", pushLatency));
 console.log(row("ingest response → e-mail accepted", mailLatency));
 console.log(`duplicates: push ${pushLatency.length - count}, e-mail ${mailLatency.length - count}; target p99 < 1500 ms`);
+
+await runOutage({
+  push,
+  smtp,
+  keys,
+  ingest,
+  secret: env.FEED_SIGNING_SECRET ?? "",
+  primaryEmail: primary.email,
+  outageSeconds: Number(values.outage),
+  count: Number(values["outage-count"]),
+  row,
+});
 
 worker.kill("SIGTERM");
 await new Promise((r) => worker.once("exit", r));
