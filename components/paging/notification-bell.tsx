@@ -94,7 +94,7 @@ export function NotificationBell() {
       {openPanel ? (
         <div role="dialog" aria-label="Latest notifications" className="absolute right-0 top-10 z-50 w-96 max-w-[calc(100vw-1rem)] rounded-lg border border-line bg-surface shadow-2xl">
           <div className="flex items-center justify-between border-b border-line px-3 py-2">
-            <span className="text-sm font-semibold">Pages &amp; alerts</span>
+            <span className="text-sm font-semibold">Call-outs</span>
             <button type="button" className="text-xs text-accent disabled:text-faint" disabled={unread === 0} onClick={() => markRead.mutate({ all: true })}>
               Mark all read
             </button>
@@ -117,7 +117,7 @@ export function NotificationBell() {
             ))}
           </ul>
           <Link href="/notifications" onClick={() => setOpenPanel(false)} className="block border-t border-line px-3 py-2 text-center text-sm text-accent">
-            All pages &amp; alerts
+            All call-outs
           </Link>
         </div>
       ) : null}

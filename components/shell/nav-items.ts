@@ -17,7 +17,7 @@ export const navItems: NavItem[] = [
   { href: "/rota", label: "Rota", icon: "rota", roles: everyone },
   { href: "/review", label: "Review", icon: "review", roles: everyone },
   { href: "/sites", label: "Sites", icon: "sites", roles: everyone },
-  { href: "/notifications", label: "Pages & alerts", icon: "notifications", roles: everyone },
+  { href: "/notifications", label: "Call-outs", icon: "notifications", roles: everyone },
   { href: "/settings", label: "Settings", icon: "settings", roles: everyone },
   { href: "/admin/users", label: "People & roles", icon: "users", roles: can.manageUsers },
   { href: "/dead-letters", label: "Rejected feed posts", icon: "dead-letters", roles: can.readDeadLetters },

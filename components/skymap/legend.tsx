@@ -1,8 +1,18 @@
+"use client";
+
+import { useTheme } from "next-themes";
 import { cn } from "@/components/ui/cn";
-import { contourColours, rampColour } from "./raster";
+import { rampColour, skyPalettes, skyThemeOf, type SkyPalette } from "./palette";
 import { rgbCss } from "./query-keys";
 
-const rampStops = Array.from({ length: 11 }, (_, i) => `${rgbCss(rampColour(i / 10))} ${i * 10}%`).join(", ");
+const rampStops = (palette: SkyPalette) => Array.from({ length: 11 }, (_, i) => `${rgbCss(rampColour(palette, i / 10))} ${i * 10}%`).join(", ");
+
+/** A legend swatch of a contour line: the line in the contour colour between two casing lines. */
+function ContourSwatch({ palette, thickPx }: { palette: SkyPalette; thickPx: number }) {
+  return (
+    <dt className="w-14 shrink-0" style={{ height: thickPx, background: rgbCss(palette.contour), boxShadow: `0 0 0 1px ${rgbCss(palette.casing)}` }} />
+  );
+}
 
 export interface LegendSite {
   code: string;
@@ -14,20 +24,21 @@ export interface LegendSite {
 
 /** What the colours, lines and markers of the sky views mean; site chips show or hide each site's band. */
 export function SkymapLegend({ sites, onToggle }: { sites: ReadonlyArray<LegendSite>; onToggle: (code: string) => void }) {
+  const palette = skyPalettes[skyThemeOf(useTheme().resolvedTheme)];
   return (
     <div className="space-y-3 text-xs">
       <dl className="space-y-1.5" aria-label="Legend">
         <div className="flex items-center gap-2">
-          <dt className="h-2.5 w-14 shrink-0 rounded-sm" style={{ background: `linear-gradient(to right, ${rampStops})` }} />
+          <dt className="h-2.5 w-14 shrink-0 rounded-sm" style={{ background: `linear-gradient(to right, ${rampStops(palette)})` }} />
           <dd className="text-muted">Probability per pixel, relative to the highest (square-root scale)</dd>
         </div>
         <div className="flex items-center gap-2">
-          <dt className="h-0.5 w-14 shrink-0" style={{ background: rgbCss(contourColours.level50) }} />
-          <dd className="text-muted">50 % credible region (greedy)</dd>
+          <ContourSwatch palette={palette} thickPx={2} />
+          <dd className="text-muted">Thick line: smallest region holding 50 % of the probability</dd>
         </div>
         <div className="flex items-center gap-2">
-          <dt className="h-0.5 w-14 shrink-0" style={{ background: rgbCss(contourColours.level90) }} />
-          <dd className="text-muted">90 % credible region (greedy)</dd>
+          <ContourSwatch palette={palette} thickPx={1} />
+          <dd className="text-muted">Thin line: smallest region holding 90 %</dd>
         </div>
         <div className="flex items-center gap-2">
           <dt className="flex w-14 shrink-0 items-center gap-1.5">

@@ -13,11 +13,11 @@ export const skymapKeys = {
 export const siteColours: ReadonlyArray<readonly [number, number, number]> = [
   [244, 114, 182],
   [96, 165, 250],
-  [251, 191, 36],
+  [132, 204, 22],
   [192, 132, 252],
   [248, 113, 113],
   [45, 212, 191],
-  [253, 186, 116],
+  [217, 70, 239],
   [226, 232, 240],
 ];
 

@@ -1,5 +1,8 @@
 import { raDecToNest } from "./healpix-lookup";
 import { nightBandContains, type NightBand } from "./night-band";
+import { rampColour, type Rgb, type SkyPalette } from "./palette";
+
+export type { Rgb } from "./palette";
 
 /** What the raster needs of a display grid (lib/skymap/display-grid.ts): NESTED probabilities and credible levels. */
 export interface RasterGrid {
@@ -7,34 +10,6 @@ export interface RasterGrid {
   probability: Float64Array;
   credibleLevel: Float64Array;
 }
-
-export type Rgb = readonly [number, number, number];
-
-/** Contour colours, also used by the legend. */
-export const contourColours = { level50: [34, 211, 238] as Rgb, level90: [163, 230, 53] as Rgb };
-
-// A dark-purple → orange → pale-yellow ramp (in the manner of the perceptually ordered "inferno" map; common practice).
-const RAMP: ReadonlyArray<readonly [number, Rgb]> = [
-  [0, [40, 11, 84]],
-  [0.25, [101, 21, 110]],
-  [0.5, [188, 55, 84]],
-  [0.75, [249, 142, 9]],
-  [1, [252, 255, 164]],
-];
-
-export function rampColour(t: number): Rgb {
-  const x = Math.min(1, Math.max(0, t));
-  for (let i = 1; i < RAMP.length; i++) {
-    const [t1, c1] = RAMP[i] as readonly [number, Rgb];
-    const [t0, c0] = RAMP[i - 1] as readonly [number, Rgb];
-    if (x <= t1) {
-      const f = (x - t0) / (t1 - t0);
-      return [c0[0] + f * (c1[0] - c0[0]), c0[1] + f * (c1[1] - c0[1]), c0[2] + f * (c1[2] - c0[2])];
-    }
-  }
-  return RAMP[RAMP.length - 1]?.[1] ?? [255, 255, 255];
-}
-
 
 /** What lies under each canvas pixel: its HEALPix pixel (−1 outside the sky) and sky position. Depends only on the view. */
 export interface PixelSamples {
@@ -64,19 +39,53 @@ export function samplePixels(width: number, height: number, nside: number, skyAt
   return { width, height, nside, nest, raDeg, decDeg };
 }
 
-// 256-entry colour table of the ramp, so painting allocates nothing per pixel
-const LUT = (() => {
-  const table = new Uint8ClampedArray(256 * 3);
-  for (let i = 0; i < 256; i++) table.set(rampColour(Math.sqrt(i / 255)), 3 * i);
+// 256-entry colour table of each palette's ramp, so painting allocates nothing per pixel
+const luts = new WeakMap<SkyPalette, Uint8ClampedArray>();
+function lutOf(palette: SkyPalette): Uint8ClampedArray {
+  let table = luts.get(palette);
+  if (!table) {
+    table = new Uint8ClampedArray(256 * 3);
+    for (let i = 0; i < 256; i++) table.set(rampColour(palette, Math.sqrt(i / 255)), 3 * i);
+    luts.set(palette, table);
+  }
   return table;
-})();
+}
+
+/** Contour marks per canvas pixel: 0 none, 1 the thin 90 % line, 2 the thick 50 % line. */
+export function contourMarks(levelClass: Int8Array, width: number, height: number): Uint8Array {
+  const marks = new Uint8Array(width * height);
+  for (let y = 0; y < height; y++) {
+    for (let x = 0; x < width; x++) {
+      const k = y * width + x;
+      const here = levelClass[k] ?? -1;
+      if (here < 0) continue;
+      const right = x + 1 < width ? (levelClass[k + 1] ?? -1) : here;
+      const down = y + 1 < height ? (levelClass[k + width] ?? -1) : here;
+      const crosses = (lim: number) => (right >= 0 && here <= lim !== right <= lim) || (down >= 0 && here <= lim !== down <= lim);
+      if (crosses(0)) {
+        // thick: the crossing pixel and the ones beyond it
+        marks[k] = 2;
+        if (x + 1 < width) marks[k + 1] = 2;
+        if (y + 1 < height) marks[k + width] = 2;
+      } else if (crosses(1) && (marks[k] ?? 0) === 0) marks[k] = 1;
+    }
+  }
+  return marks;
+}
 
 /**
- * Paints the probability (square-root colour scale of p / p_max, transparent where negligible), the 50 % and 90 %
- * contours (edges of {credible level ≤ 0.5} and {≤ 0.9}) and dashed outlines of up to 8 sites' night-time bands.
+ * Paints the probability (square-root colour scale of p / p_max, transparent where negligible), the 50 % (thick)
+ * and 90 % (thin) contours cased in the background colour (edges of {credible level ≤ 0.5} and {≤ 0.9}), and
+ * dashed outlines of up to 8 sites' night-time bands.
  */
-export function paint(samples: PixelSamples, grid: RasterGrid, bands: ReadonlyArray<NightBand & { colour: Rgb }>): Uint8ClampedArray<ArrayBuffer> {
+export function paint(
+  samples: PixelSamples,
+  grid: RasterGrid,
+  bands: ReadonlyArray<NightBand & { colour: Rgb }>,
+  palette: SkyPalette,
+): Uint8ClampedArray<ArrayBuffer> {
   const { width, height, nest } = samples;
+  const lut = lutOf(palette);
   const rgba = new Uint8ClampedArray(width * height * 4);
   const levelClass = new Int8Array(width * height).fill(-1);
   const bandMask = new Uint8Array(width * height);
@@ -95,9 +104,9 @@ export function paint(samples: PixelSamples, grid: RasterGrid, bands: ReadonlyAr
     const t = pmax > 0 ? (grid.probability[pix] ?? 0) / pmax : 0;
     if (t < 0.004) continue;
     const i = Math.min(255, Math.round(t * 255));
-    rgba[4 * k] = LUT[3 * i] ?? 0;
-    rgba[4 * k + 1] = LUT[3 * i + 1] ?? 0;
-    rgba[4 * k + 2] = LUT[3 * i + 2] ?? 0;
+    rgba[4 * k] = lut[3 * i] ?? 0;
+    rgba[4 * k + 1] = lut[3 * i + 1] ?? 0;
+    rgba[4 * k + 2] = lut[3 * i + 2] ?? 0;
     rgba[4 * k + 3] = Math.round(255 * Math.min(1, 0.25 + t * 1.5));
   }
 
@@ -107,16 +116,16 @@ export function paint(samples: PixelSamples, grid: RasterGrid, bands: ReadonlyAr
     rgba[4 * k + 2] = c[2];
     rgba[4 * k + 3] = 255;
   };
+  const marks = contourMarks(levelClass, width, height);
+  const marked = (k: number) => (marks[k] ?? 0) > 0;
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
       const k = y * width + x;
-      const here = levelClass[k] ?? -1;
-      if (here < 0) continue;
-      const right = x + 1 < width ? (levelClass[k + 1] ?? -1) : here;
-      const down = y + 1 < height ? (levelClass[k + width] ?? -1) : here;
-      const crosses = (lim: number) => (right >= 0 && here <= lim !== right <= lim) || (down >= 0 && here <= lim !== down <= lim);
-      if (crosses(0)) put(k, contourColours.level50);
-      else if (crosses(1)) put(k, contourColours.level90);
+      if (marked(k)) put(k, palette.contour);
+      else if ((x > 0 && marked(k - 1)) || (x + 1 < width && marked(k + 1)) || (y > 0 && marked(k - width)) || (y + 1 < height && marked(k + width))) {
+        put(k, palette.casing); // the casing keeps the line legible over any ramp colour
+      }
+      if ((levelClass[k] ?? -1) < 0) continue;
       if (((x + y) >> 2) & 1) continue; // dashes: every other run of 4 pixels
       const mask = bandMask[k] ?? 0;
       const changed = (mask ^ (x + 1 < width ? (bandMask[k + 1] ?? 0) : mask)) | (mask ^ (y + 1 < height ? (bandMask[k + width] ?? 0) : mask));

@@ -1,11 +1,13 @@
 "use client";
 
 import { geoGraticule, geoPath } from "d3-geo";
+import { useTheme } from "next-themes";
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { NightBand } from "./night-band";
 import { projectView, type SkyView } from "./projection";
 import { paint, samplePixels, type RasterGrid, type Rgb } from "./raster";
 import { formatDec, formatRa } from "./format";
+import { skyPalettes, skyThemeOf } from "./palette";
 
 export interface SkyMarker {
   raDeg: number;
@@ -64,14 +66,15 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
   const height = Math.round(width / aspect);
   const projected = useMemo(() => (width > 0 ? projectView(view, width, height) : null), [view, width, height]);
   const [hover, setHover] = useState<[number, number] | null>(null);
+  const palette = skyPalettes[skyThemeOf(useTheme().resolvedTheme)];
 
   // the costly part (inverse projection and HEALPix lookup per canvas pixel) depends only on the view and size
   const samples = useMemo(() => (projected ? samplePixels(width, height, grid.nside, projected.skyAt) : null), [projected, width, height, grid.nside]);
   useEffect(() => {
     const ctx = canvas.current?.getContext("2d");
     if (!ctx || !samples) return;
-    ctx.putImageData(new ImageData(paint(samples, grid, bands), samples.width, samples.height), 0, 0);
-  }, [samples, grid, bands]);
+    ctx.putImageData(new ImageData(paint(samples, grid, bands, palette), samples.width, samples.height), 0, 0);
+  }, [samples, grid, bands, palette]);
 
   const overlay = useMemo(() => {
     if (!projected) return null;

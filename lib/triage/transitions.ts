@@ -18,8 +18,8 @@ export const decisionStates: readonly TriageState[] = ["pursue", "dismissed", "e
 
 /** Column labels of the board, in board order. */
 export const triageLabels: Record<TriageState, string> = {
-  new: "New",
-  acknowledged: "Acknowledged",
+  new: "Incoming",
+  acknowledged: "Taken",
   reviewing: "In review",
   pursue: "Pursue",
   dismissed: "Dismissed",
@@ -28,8 +28,8 @@ export const triageLabels: Record<TriageState, string> = {
 
 /** A one-line hint under each column heading. */
 export const triageHints: Record<TriageState, string> = {
-  new: "Not yet looked at",
-  acknowledged: "Someone is on it",
+  new: "Nobody has acknowledged it yet",
+  acknowledged: "Acknowledged; someone has it",
   reviewing: "Being checked",
   pursue: "Go for follow-up",
   dismissed: "Not worth follow-up",

@@ -25,17 +25,17 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     await openBoard(other, ctx.baseUrl);
     await other.locator('[data-testid=live-status][data-status=live]').waitFor({ timeout: 15_000 });
 
-    // Mouse: New → Acknowledged.
+    // Mouse: Incoming → Taken.
     const mouseCard = card(page, names.mouse);
     await mouseCard.waitFor();
     check((await columnOf(mouseCard)) === "new", "a fresh candidate starts in New");
     await dragWithMouse(page, mouseCard.getByTestId("card-handle"), page.locator('[data-column="acknowledged"]'));
     await card(page, names.mouse, "acknowledged").waitFor({ timeout: 10_000 });
-    ctx.log("mouse drag moved the card to Acknowledged");
+    ctx.log("mouse drag moved the card to Taken");
     await card(other, names.mouse, "acknowledged").waitFor({ timeout: 15_000 });
     ctx.log("the second browser saw it live");
 
-    // Keyboard: New → (Acknowledged) → In review, with spoken announcements.
+    // Keyboard: Incoming → (Taken) → In review, with spoken announcements.
     const keyHandle = card(page, names.keys).getByTestId("card-handle");
     // dnd-kit's keyboard sensor starts listening for arrow keys one task after the pick-up (a setTimeout in its
     // attach()), so each key waits for the announcement of the step before it, as a screen-reader user would.
@@ -52,10 +52,10 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     await keyHandle.focus();
     check(await keyHandle.evaluate((el) => el === document.activeElement), "the card's move handle takes keyboard focus");
     await page.keyboard.press("Space");
-    await heard(new RegExp(`Picked up candidate ${names.keys}|candidate ${names.keys} is over column New`));
+    await heard(new RegExp(`Picked up candidate ${names.keys}|candidate ${names.keys} is over column Incoming`));
     await page.evaluate(() => new Promise((resolve) => setTimeout(resolve, 50)));
     await page.keyboard.press("ArrowRight");
-    await heard(/is over column Acknowledged/);
+    await heard(/is over column Taken/);
     await page.keyboard.press("ArrowRight");
     await heard(/is over column In review/);
     await page.keyboard.press("Space");

@@ -7,14 +7,14 @@ import { Panel, PanelTitle } from "@/components/ui/panel";
 import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 
-export const metadata = { title: "Pages & alerts" };
+export const metadata = { title: "Call-outs" };
 
 export default async function NotificationsPage() {
   const user = await requirePageUser();
   return (
     <div className="max-w-5xl space-y-4">
       <PageHeader
-        title="Pages & alerts"
+        title="Call-outs"
         description="Everything you were paged about, newest first, and whether push and e-mail reached you. Times in your zone; hover for UTC."
         actions={
           <Link href="/notifications/preferences" className="inline-flex h-8 items-center gap-1.5 rounded-md border border-line px-2.5 text-sm hover:border-line-strong">

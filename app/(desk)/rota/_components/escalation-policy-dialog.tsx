@@ -26,13 +26,13 @@ export function EscalationPolicyDialog({ policy, onClose, onSaved }: { policy: E
   const save = useMutation({
     mutationFn: (p: EscalationPolicy) => apiFetch<EscalationPolicy>("/api/v1/escalation-policy", { method: "PUT", json: p }),
     onSuccess: (next) => {
-      toast.success("Escalation policy saved; it applies to candidates from now on.");
+      toast.success("Call-out ladder saved; it applies to candidates from now on.");
       onSaved(next);
     },
     onError: (e) => form.setError("root", { message: e instanceof ApiClientError ? e.message : "Could not save" }),
   });
   return (
-    <Dialog open onOpenChange={(o) => !o && onClose()} title="Escalation policy" description="Steps run in order until someone acknowledges; the first matching rule may soften them.">
+    <Dialog open onOpenChange={(o) => !o && onClose()} title="Call-out ladder" description="Steps run in order until someone acknowledges; the first matching rule may soften them.">
       <form onSubmit={form.handleSubmit((p) => save.mutate(p))} className="space-y-4" noValidate>
         <fieldset className="space-y-2">
           <legend className="text-sm font-medium">Steps</legend>

@@ -31,7 +31,7 @@ export function EscalationPolicyPanel({ policy: initial, canEdit }: { policy: Es
   return (
     <Panel data-testid="escalation-policy">
       <div className="flex items-start justify-between gap-3">
-        <PanelTitle>Escalation policy</PanelTitle>
+        <PanelTitle>Call-out ladder</PanelTitle>
         {canEdit ? (
           <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
             <Pencil aria-hidden className="h-4 w-4" /> Change
