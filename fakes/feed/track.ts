@@ -1,4 +1,4 @@
-import { chirpFrequencyAt, schwarzschildIscoFrequencyHz, timeToMergerSeconds } from "@/lib/physics";
+import { pnChirpFrequencyAt, schwarzschildIscoFrequencyHz, timeToMergerSeconds } from "@/lib/physics";
 import { round, type FeedRandom } from "./random";
 
 export interface TrackPlan {
@@ -20,12 +20,14 @@ export interface FakeTrack {
 }
 
 /**
- * A frequency track from the leading-order chirp f(t) = (1/π) (5 / (256 (t_c − t)))^(3/8) (G𝓜/c³)^(−5/8)
- * (Peters & Mathews 1963), sampled evenly in time between a low frequency and ~0.9 of the Schwarzschild ISCO
+ * A frequency track from the 3.5PN TaylorT4 chirp (lib/physics/pn-taylor-t4.ts; start and end times from the
+ * leading-order chirp time of Peters & Mathews 1963), sampled evenly in time between a low frequency and ~0.9 of the Schwarzschild ISCO
  * (or up to `lastSampleTimeS`), with Gaussian frequency noise of `noiseFraction`.
  */
 export function makeTrack(rng: FeedRandom, plan: TrackPlan): FakeTrack {
   const mc = plan.chirpMassDetectorFrame;
+  // η = (𝓜/M)^(5/3); the track follows the 3.5PN TaylorT4 evolution the desk fits (spins left out).
+  const eta = Math.min(0.25, (mc / plan.totalMassDetectorFrame) ** (5 / 3));
   const tc = plan.coalescenceTimeS;
   const highHz = Math.min(500, 0.9 * schwarzschildIscoFrequencyHz(plan.totalMassDetectorFrame));
   const lowHz = Math.min(25, 0.3 * highHz);
@@ -40,7 +42,7 @@ export function makeTrack(rng: FeedRandom, plan: TrackPlan): FakeTrack {
   const n = Math.max(3, plan.sampleCount);
   for (let i = 0; i < n; i++) {
     const time = first + ((end - first) * i) / (n - 1);
-    const trueHz = chirpFrequencyAt(mc, tc, time);
+    const trueHz = pnChirpFrequencyAt(mc, eta, tc, time);
     t.push(round(time, 6));
     f.push(round(trueHz * (1 + rng.normal(0, plan.noiseFraction)), 4));
     fSigma.push(round(trueHz * plan.noiseFraction, 4));

@@ -3,6 +3,7 @@ import { z } from "zod";
 import { getDb } from "@/db";
 import { settings } from "@/db/schema";
 import { escalationPolicySchema } from "@/lib/validations/paging";
+import { physicsSettingsSchema } from "@/lib/validations/physics-settings";
 import type { SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
 import { appendEvent, type Tx } from "./events";
@@ -12,12 +13,7 @@ import { appendEvent, type Tx } from "./events";
  * Areas add their own key here.
  */
 export const settingSchemas = {
-  physics: z.object({
-    nsMaxMassSolar: z.number().min(1).max(5).default(3.0),
-    gapUpperMassSolar: z.number().min(2).max(10).default(5.0),
-    nsRadiusKm: z.number().min(8).max(16).default(12),
-    sampleCount: z.number().int().min(1000).max(200_000).default(20_000),
-  }),
+  physics: physicsSettingsSchema,
   /**
    * Minutes. acknowledgeWarn/Alarm run from receipt (the board's card timers). The others are the review's step
    * deadlines, each on that step's own duration (lib/review/steps.ts): merger → receipt (feedLatency),

@@ -39,6 +39,20 @@ export const derivedSchema: JsonSchema = {
       properties: { bns: num("neutron-star pair"), nsbh: num("neutron star–black hole"), bbh: num("black-hole pair"), lowerGap: num("a component in the lower mass gap") },
     }),
     classSampleCount: { type: "integer", description: "samples drawn for the probabilities" },
+    classProbabilitiesSe: nullable({ type: "object", description: "binomial Monte Carlo standard error √(p(1−p)/N) of each class probability" }),
+    astroProbability: nullable({
+      type: "object",
+      description:
+        "probability of astrophysical origin (two-component Poisson mixture, FGMC 2015; ρ⁻⁴ foreground, terrestrial density ρ·FAR); byClass = pAstro × class probabilities",
+      properties: { pAstro: num("probability of astrophysical origin"), pTerrestrial: num("1 − pAstro"), byClass: { type: ["object", "null"] } },
+    }),
+    astroProbabilityError: reason("astroProbability"),
+    remnantMatter: nullable({ type: "object", description: "FHN 2018 Eq. 4 remnant-mass fraction for the mean masses, with the neutron-star radius and black-hole spin assumed" }),
+    fit: nullable({
+      type: "object",
+      description:
+        "fit diagnostics: model (pn-3.5 = 3.5PN TaylorT4 with the trigger's mass ratio; leading-order), massRatio, shapeCheck (a failed check leaves chirpMass null with track-not-chirp-like), warnings",
+    }),
     pNeutronStar: nullable(num("probability that at least one component is a neutron star")),
     pRemnantMatter: nullable(num("probability that matter remains outside the final black hole")),
     mergerFrequency: nullable({

@@ -16,6 +16,8 @@ export function toPhysicsInput(payload: FeedCandidate, receivedAt: Date): Trigge
     ...(payload.spins ? { spins: payload.spins } : {}),
     ...(payload.distanceMpc ? { distanceMpc: payload.distanceMpc } : {}),
     secondsSinceEventTimeAtReceipt: (receivedAt.getTime() - Date.parse(payload.eventTime)) / 1000,
+    networkSnr: payload.networkSnr,
+    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
   };
 }
 

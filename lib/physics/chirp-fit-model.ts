@@ -148,9 +148,17 @@ export function inverseNormalOf(e: Evaluation): readonly [number, number, number
  * after the first also accumulates the sandwich sums, with leverages from the previous pass's N⁻¹, so the caller
  * needs no extra pass over the data for them.
  */
+/** χ², normal matrix and gradient of one model at a point (with sandwich sums when given N⁻¹); null off-domain. */
+export type Evaluator = (point: ModelPoint, inverseNormal: readonly [number, number, number] | null) => Evaluation | null;
+
+/** The leading-order model of this file as an Evaluator. */
+export function leadingOrderEvaluator(samples: Samples, fRef: number): Evaluator {
+  return (point, inverseNormal) => evaluate(samples, fRef, point, inverseNormal);
+}
+
 export function gaussNewton(
   samples: Samples,
-  fRef: number,
+  evaluator: Evaluator,
   start: ModelPoint,
   stepTolerance: number,
   sandwich = false,
@@ -160,7 +168,7 @@ export function gaussNewton(
   const span = tLast - (samples.t[0] as number);
   // The model needs every sample before t_c; nudge a noisy start past the last sample.
   let point: ModelPoint = { logA: start.logA, tc: Math.max(start.tc, tLast + (1e-3 * span) / n) };
-  const first = evaluate(samples, fRef, point);
+  const first = evaluator(point, null);
   if (first === null) return fail("degenerate-fit", "start lies inside the track");
   let current: Evaluation = first;
   let iterations = 0;
@@ -182,7 +190,7 @@ export function gaussNewton(
     let accepted: { point: ModelPoint; e: Evaluation } | null = null;
     for (let h = 0, factor = 1; h < MAX_HALVINGS && accepted === null; h++, factor /= 2) {
       const trial: ModelPoint = { logA: point.logA + factor * stepA, tc: point.tc + factor * stepT };
-      const e = evaluate(samples, fRef, trial, sandwich ? inverseNormalOf(current) : null);
+      const e = evaluator(trial, sandwich ? inverseNormalOf(current) : null);
       if (e !== null && e.chiSquare <= current.chiSquare) accepted = { point: trial, e };
     }
     if (accepted === null) break;

@@ -7,7 +7,7 @@
  * Times in s (relative to eventTime), frequencies in Hz, chirp mass in the detector frame.
  */
 import { CHIRP_TIME_COEFFICIENT, chirpMassFromLogAmplitude } from "./chirp";
-import { evaluate, gaussNewton, inverseNormalOf, straightLineStart, type Samples } from "./chirp-fit-model";
+import { evaluate, gaussNewton, inverseNormalOf, leadingOrderEvaluator, straightLineStart, type Samples } from "./chirp-fit-model";
 import { fail, succeed, type PhysicsResult } from "./result";
 import { validateTimeTrack, type TimeTrackInput } from "./time-track-validation";
 
@@ -37,7 +37,7 @@ const SUBSAMPLE_LIMIT = 2048;
 /** Largest full-track Gauss–Newton step (in standard errors) applied without a further pass; see fitTimeTrack. */
 export const FULL_TRACK_STEP_TOLERANCE = 0.5;
 
-function subsample(samples: Samples): Samples {
+export function subsample(samples: Samples): Samples {
   const n = samples.t.length;
   if (n <= SUBSAMPLE_LIMIT) return samples;
   const pick = (values: readonly number[]) =>
@@ -55,7 +55,7 @@ export function fitTimeTrack(track: TimeTrackInput): PhysicsResult<TimeTrackFit>
   const coarse = subsample(samples);
   const start = straightLineStart(coarse, fRef);
   if (!start.ok) return start;
-  const coarseFit = coarse === samples ? null : gaussNewton(coarse, fRef, start.value, 1e-4);
+  const coarseFit = coarse === samples ? null : gaussNewton(coarse, leadingOrderEvaluator(coarse, fRef), start.value, 1e-4);
   if (coarseFit !== null && !coarseFit.ok) return coarseFit;
   // Within a standard error of the minimum, Gauss–Newton converges quadratically here: a step of s standard errors
   // leaves about 10⁻³ s² behind (measured over 10³–10⁵-sample tracks; tested below 10⁻³ for s = 0.5). So a
@@ -63,7 +63,7 @@ export function fitTimeTrack(track: TimeTrackInput): PhysicsResult<TimeTrackFit>
   const withSigma = samples.sigma !== undefined;
   const refined = gaussNewton(
     samples,
-    fRef,
+    leadingOrderEvaluator(samples, fRef),
     coarseFit?.value.point ?? start.value,
     coarse === samples ? 1e-4 : FULL_TRACK_STEP_TOLERANCE,
     !withSigma && coarse !== samples,

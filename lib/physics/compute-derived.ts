@@ -3,17 +3,16 @@
  * this folder. Pure and deterministic (the Monte Carlo is seeded from a string); never throws — each block fails
  * on its own into null plus a reason.
  */
-import { fitDerivativeTrack, type DerivativeTrackInput } from "./chirp-fit-derivative";
-import { fitTimeTrack, type TimeTrackInput } from "./chirp-fit-time";
-import type { ChirpMassBlock, Derived, FitDiagnostics, FitPlot, ValueWithSd } from "./derived-types";
+import type { ChirpMassBlock, Derived, ValueWithSd } from "./derived-types";
+import { fitTrack } from "./derive-track";
 import { planck18DistanceTable, redshiftPerDistance } from "./distance-table";
-import { derivativeTrackPlot, timeTrackPlot } from "./fit-plot";
 import { computeMergerFrequencies } from "./merger-frequencies";
+import { mergerSpreads } from "./merger-uncertainty";
+import { classStandardErrors, computeAstroProbability } from "./p-astro";
+import { estimateRemnantMatter } from "./remnant-matter";
 import { describeFailure, fail, succeed, type PhysicsResult } from "./result";
 import { computeSourceClasses, type GaussianEstimate } from "./source-class";
-import type { PhysicsSettings, TriggerPhysicsInput } from "./index";
-
-type TrackFitOutcome = { fit: FitDiagnostics; plot: FitPlot; chirpMass: ValueWithSd; coalescence: ValueWithSd | null };
+import { defaultPhysicsSettings, type PhysicsSettings, type TriggerPhysicsInput } from "./index";
 
 /** Path of the first non-finite number inside a value, or null when every number is finite. */
 function firstNonFinite(value: unknown, path: string): string | null {
@@ -41,81 +40,6 @@ function guarded<T>(body: () => PhysicsResult<T>): PhysicsResult<T> {
   }
 }
 
-function frequencyRange(f: readonly number[]): { min: number; max: number } {
-  let min = Infinity;
-  let max = -Infinity;
-  for (const value of f) {
-    min = Math.min(min, value);
-    max = Math.max(max, value);
-  }
-  return { min, max };
-}
-
-/** A χ²/dof well above 1 means the quoted per-sample uncertainties were too small; say so beside the numbers. */
-function fitWarnings(reducedChiSquare: number | null): string[] {
-  return reducedChiSquare !== null && reducedChiSquare > 3
-    ? [`residuals exceed the quoted uncertainties (χ²/dof = ${reducedChiSquare.toFixed(2)}); errors scaled up`]
-    : [];
-}
-
-/** What both track fits report, whichever form the track had. */
-interface CommonFit {
-  samplesUsed: number;
-  reducedChiSquare: number | null;
-  uncertaintyScale: number;
-  weighting: FitDiagnostics["weighting"];
-  chirpMassDetectorFrame: number;
-  chirpMassDetectorFrameSd: number;
-}
-
-function fitOutcome(
-  fit: CommonFit,
-  f: readonly number[],
-  residual: Pick<FitDiagnostics, "trackKind" | "residualRms" | "residualRmsUnit">,
-  plot: FitPlot,
-  coalescence: ValueWithSd | null,
-): TrackFitOutcome {
-  const range = frequencyRange(f);
-  return {
-    fit: {
-      ...residual,
-      samplesUsed: fit.samplesUsed,
-      reducedChiSquare: fit.reducedChiSquare,
-      uncertaintyScale: fit.uncertaintyScale,
-      weighting: fit.weighting,
-      frequencyMinHz: range.min,
-      frequencyMaxHz: range.max,
-      warnings: fitWarnings(fit.reducedChiSquare),
-    },
-    plot,
-    chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
-    coalescence,
-  };
-}
-
-function fitTrack(track: TriggerPhysicsInput["frequencyTrack"] | undefined): PhysicsResult<TrackFitOutcome> {
-  if (track === undefined || track === null || typeof track !== "object") return fail("missing-input", "no frequency track");
-  if ("t" in track) {
-    const timeTrack: TimeTrackInput = track;
-    const result = fitTimeTrack(timeTrack);
-    if (!result.ok) return result;
-    const fit = result.value;
-    const residualRms = Number.isFinite(fit.residualRmsHz) ? fit.residualRmsHz : null;
-    return succeed(
-      fitOutcome(fit, track.f, { trackKind: "time", residualRms, residualRmsUnit: "Hz" }, timeTrackPlot(fit, track.t, track.f), {
-        value: fit.coalescenceTimeS,
-        sd: fit.coalescenceTimeSd,
-      }),
-    );
-  }
-  const derivativeTrack: DerivativeTrackInput = track;
-  const result = fitDerivativeTrack(derivativeTrack);
-  if (!result.ok) return result;
-  const fit = result.value;
-  const residual = { trackKind: "derivative", residualRms: fit.residualRmsFraction, residualRmsUnit: "fraction" } as const;
-  return succeed(fitOutcome(fit, track.f, residual, derivativeTrackPlot(fit, track.f, track.dfdt), null));
-}
-
 function isGaussian(value: GaussianEstimate | undefined): value is GaussianEstimate {
   return value !== undefined && value !== null && Number.isFinite(value.mean) && Number.isFinite(value.sd) && value.mean > 0 && value.sd >= 0;
 }
@@ -138,14 +62,17 @@ function sourceFrame(detector: ValueWithSd, redshift: ValueWithSd): ValueWithSd 
 const errorOf = <T>(result: PhysicsResult<T>): string | null => (result.ok ? null : describeFailure(result));
 const valueOf = <T>(result: PhysicsResult<T>): T | null => (result.ok ? result.value : null);
 
-export function computeDerivedPhysics(input: TriggerPhysicsInput, settings: PhysicsSettings, seed: string): Derived {
+export function computeDerivedPhysics(input: TriggerPhysicsInput, givenSettings: PhysicsSettings, seed: string): Derived {
   const safeInput: Partial<TriggerPhysicsInput> = input !== null && typeof input === "object" ? input : {};
-  const track = guarded(() => fitTrack(safeInput.frequencyTrack));
+  // Settings stored before a field existed read as its default.
+  const settings: PhysicsSettings = { ...defaultPhysicsSettings, ...(givenSettings ?? {}) };
+  const track = guarded(() => fitTrack(safeInput, settings, seed));
   const distanceGiven = safeInput.distanceMpc !== undefined && safeInput.distanceMpc !== null;
   const redshift = guarded(() => (distanceGiven ? redshiftFromDistance(safeInput.distanceMpc as GaussianEstimate) : succeed({ value: 0, sd: 0 })));
 
   const chirpMass = guarded<ChirpMassBlock>(() => {
     if (!track.ok) return track;
+    if (track.value.notChirpLike !== null) return fail("track-not-chirp-like", track.value.notChirpLike);
     return succeed({
       detectorFrame: track.value.chirpMass,
       sourceFrame: redshift.ok ? sourceFrame(track.value.chirpMass, redshift.value) : null,
@@ -154,6 +81,7 @@ export function computeDerivedPhysics(input: TriggerPhysicsInput, settings: Phys
   });
   const coalescence = guarded<ValueWithSd>(() => {
     if (!track.ok) return track;
+    if (track.value.notChirpLike !== null) return fail("track-not-chirp-like", track.value.notChirpLike);
     if (track.value.coalescence === null) return fail("missing-input", "(f, df/dt) pairs carry no times, so no coalescence time");
     return succeed(track.value.coalescence);
   });
@@ -185,19 +113,31 @@ export function computeDerivedPhysics(input: TriggerPhysicsInput, settings: Phys
       seed,
     );
   });
+  const mergerInput = () =>
+    masses && typeof masses === "object" && isGaussian(masses.m1) && isGaussian(masses.m2)
+      ? { mass1DetectorFrame: masses.m1.mean, mass2DetectorFrame: masses.m2.mean, chi1, chi2, spinsAssumed: !spinsGiven, redshift: redshift.ok ? redshift.value.value : null }
+      : null;
   const merger = guarded(() => {
-    if (!masses || typeof masses !== "object" || !isGaussian(masses.m1) || !isGaussian(masses.m2)) {
-      return fail("invalid-mass", "each mass needs a finite mean > 0 and a finite sd ≥ 0");
-    }
-    return computeMergerFrequencies({
-      mass1DetectorFrame: masses.m1.mean,
-      mass2DetectorFrame: masses.m2.mean,
-      chi1,
-      chi2,
-      spinsAssumed: !spinsGiven,
-      redshift: redshift.ok ? redshift.value.value : null,
+    const given = mergerInput();
+    if (given === null || !masses) return fail("invalid-mass", "each mass needs a finite mean > 0 and a finite sd ≥ 0");
+    const result = computeMergerFrequencies(given);
+    if (!result.ok) return result;
+    const z = given.redshift ?? 0;
+    const bothNs = Math.max(given.mass1DetectorFrame, given.mass2DetectorFrame) / (1 + z) < settings.nsMaxMassSolar;
+    return succeed({
+      ...result.value,
+      sd: mergerSpreads(given, masses.m1.sd, masses.m2.sd),
+      remnantNote: bothNs ? "both mean masses are neutron-star masses: the remnant and ringdown apply only if a black hole forms" : null,
     });
   });
+  const remnantMatter = guarded(() => {
+    const given = mergerInput();
+    if (given === null) return fail("invalid-mass", "each mass needs a finite mean > 0 and a finite sd ≥ 0");
+    return estimateRemnantMatter({ ...given, redshift: given.redshift ?? 0, nsMaxMassSolar: settings.nsMaxMassSolar, nsRadiusKm: settings.nsRadiusKm });
+  });
+  const astro = guarded(() =>
+    computeAstroProbability(safeInput.networkSnr, safeInput.falseAlarmRatePerYear, classes.ok ? classes.value.classProbabilities : null, settings),
+  );
 
   const classValue = valueOf(classes);
   const classError = errorOf(classes);
@@ -213,6 +153,11 @@ export function computeDerivedPhysics(input: TriggerPhysicsInput, settings: Phys
     classProbabilities: classValue?.classProbabilities ?? null,
     classProbabilitiesError: classError,
     classSampleCount: classValue?.sampleCount ?? 0,
+    classProbabilitiesSe: classValue ? classStandardErrors(classValue.classProbabilities, classValue.sampleCount) : null,
+    astroProbability: valueOf(astro),
+    astroProbabilityError: errorOf(astro),
+    remnantMatter: valueOf(remnantMatter),
+    remnantMatterError: errorOf(remnantMatter),
     pNeutronStar: classValue?.pNeutronStar ?? null,
     pNeutronStarError: classError,
     pRemnantMatter: classValue?.pRemnantMatter ?? null,
@@ -226,11 +171,6 @@ export function computeDerivedPhysics(input: TriggerPhysicsInput, settings: Phys
     fitError: errorOf(track),
     plot: trackValue?.plot ?? null,
     plotError: errorOf(track),
-    settingsUsed: {
-      nsMaxMassSolar: settings?.nsMaxMassSolar,
-      gapUpperMassSolar: settings?.gapUpperMassSolar,
-      nsRadiusKm: settings?.nsRadiusKm,
-      sampleCount: settings?.sampleCount,
-    },
+    settingsUsed: settings,
   };
 }

@@ -2,8 +2,12 @@
  * The derived-physics JSON stored with each trigger revision and answered by the feed API. Plain data only
  * (no NaN/Infinity): anything that cannot be computed is null with a one-line reason in the matching *Error field.
  */
+import type { ShapeCheck } from "./chirp-shape";
+import type { AstroProbability } from "./p-astro";
 import type { ClassProbabilities } from "./source-class";
 import type { MergerFrequencies } from "./merger-frequencies";
+import type { RemnantMatterEstimate } from "./remnant-matter";
+import type { PhysicsSettings } from "./index";
 
 export interface ValueWithSd {
   value: number;
@@ -19,6 +23,8 @@ export interface ChirpMassBlock {
 
 export interface FitDiagnostics {
   trackKind: "time" | "derivative";
+  /** the frequency evolution fitted: 3.5PN TaylorT4 with the trigger's mass ratio, or leading order */
+  model: "pn-3.5" | "leading-order";
   /** RMS residual in residualRmsUnit: Hz for f(t) tracks, a dimensionless fraction of df/dt for (f, df/dt) pairs. */
   residualRms: number | null;
   residualRmsUnit: "Hz" | "fraction";
@@ -28,6 +34,10 @@ export interface FitDiagnostics {
   weighting: string;
   frequencyMinHz: number;
   frequencyMaxHz: number;
+  /** η used by the PN fit, its sd from the trigger's masses, and the part of the chirp-mass sd it causes (M☉) */
+  massRatio: { eta: number; etaSd: number; chirpMassSdFromMassRatio: number } | null;
+  /** chirp-shape criteria (time tracks); a failed check leaves chirpMass null */
+  shapeCheck: ShapeCheck | null;
   warnings: string[];
 }
 
@@ -56,6 +66,12 @@ export interface Derived {
   classProbabilities: ClassProbabilities | null;
   classProbabilitiesError: string | null;
   classSampleCount: number;
+  /** binomial Monte Carlo standard error of each class probability, √(p (1 − p) / N) */
+  classProbabilitiesSe: ClassProbabilities | null;
+  astroProbability: AstroProbability | null;
+  astroProbabilityError: string | null;
+  remnantMatter: RemnantMatterEstimate | null;
+  remnantMatterError: string | null;
   pNeutronStar: number | null;
   pNeutronStarError: string | null;
   pRemnantMatter: number | null;
@@ -69,5 +85,5 @@ export interface Derived {
   fitError: string | null;
   plot: FitPlot | null;
   plotError: string | null;
-  settingsUsed: { nsMaxMassSolar: number; gapUpperMassSolar: number; nsRadiusKm: number; sampleCount: number };
+  settingsUsed: PhysicsSettings;
 }

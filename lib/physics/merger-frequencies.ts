@@ -5,6 +5,7 @@
  * Berti, Cardoso & Will 2006 quasinormal-mode fit. See kerr.ts and remnant.ts.
  */
 import { iscoGravitationalWaveFrequencyHz, schwarzschildIscoFrequencyHz } from "./kerr";
+import type { MergerSpreads } from "./merger-uncertainty";
 import { finalSpinAligned, radiatedEnergyFraction, ringdownMode } from "./remnant";
 import { describeFailure, fail, succeed, type PhysicsResult } from "./result";
 
@@ -29,6 +30,10 @@ export interface MergerFrequencies {
   ringdownError: string | null;
   /** true when no spins were given and χ1 = χ2 = 0 was used. */
   spinsAssumed: boolean;
+  /** 1σ spreads from the component-mass sds (merger-uncertainty.ts); null when they could not be propagated */
+  sd?: MergerSpreads | null;
+  /** set for a neutron-star pair: the black-hole remnant and ringdown apply only if a black hole forms */
+  remnantNote?: string | null;
 }
 
 export interface MergerFrequencyInput {

@@ -9,6 +9,8 @@ export type PhysicsFailureCode =
   | "non-positive-uncertainty"
   | "times-not-increasing"
   | "frequency-not-rising"
+  | "track-implausible"
+  | "track-not-chirp-like"
   | "non-physical-slope"
   | "degenerate-fit"
   | "invalid-mass"

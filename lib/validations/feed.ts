@@ -16,11 +16,28 @@ const gaussian = (what: string, unit: string) =>
 
 const spin = finite.min(-1).max(1);
 
+/** A component mass outside 0.1–1000 M☉ is no compact object the network can see (limits are ours). */
+const componentMass = (what: string) =>
+  z
+    .strictObject({
+      mean: finite.min(0.1).max(1000).meta({ description: `mean ${what}, solar masses, 0.1–1000` }),
+      sd: finite.nonnegative().max(1000).meta({ description: "one standard deviation, solar masses" }),
+    })
+    .meta({ description: `${what}: a normal approximation` });
+
 export const frequencyTrackSchema = z
   .strictObject({
     t: z.array(finite).meta({ description: "sample times, seconds relative to eventTime (negative before merger)" }),
     f: z.array(finite).meta({ description: "gravitational-wave frequency at each time, Hz" }),
-    fSigma: z.array(finite.nonnegative()).optional().meta({ description: "optional 1σ of each frequency, Hz" }),
+    fSigma: z
+      .array(finite.nonnegative())
+      .optional()
+      .meta({
+        description:
+          "optional 1σ of each frequency, Hz, from the pipeline's own noise model. Do not send σ proportional to the " +
+          "observed (noisy) frequency: weights 1/σ² then favour samples that scattered low and bias the fit; " +
+          "omit fSigma instead and the fit estimates the scatter from the residuals.",
+      }),
   })
   .superRefine((track, ctx) => {
     if (track.f.length !== track.t.length) {
@@ -72,7 +89,7 @@ export const feedCandidateSchema = z
     falseAlarmRatePerYear: finite.nonnegative().meta({ description: "false alarms per year at this ranking" }),
     frequencyTrack: frequencyTrackSchema,
     masses: z
-      .strictObject({ m1: gaussian("component mass 1", "solar masses"), m2: gaussian("component mass 2", "solar masses") })
+      .strictObject({ m1: componentMass("component mass 1"), m2: componentMass("component mass 2") })
       .meta({ description: "component masses, detector frame" }),
     spins: z
       .strictObject({ chi1: spin, chi2: spin })

@@ -1,3 +1,4 @@
+import { pnChirpFrequencyAt } from "@/lib/physics";
 import { describe, expect, it } from "vitest";
 import { parseRate } from "@/fakes/feed/config";
 import { FeedGenerator, scenarios, type Scenario } from "@/fakes/feed/generator";
@@ -55,11 +56,10 @@ describe("the fake feed generator", () => {
     }
   });
 
-  it("samples tracks from the leading-order chirp (Peters & Mathews 1963) with the requested noise", () => {
-    // f(t) = (1/π) (5 / (256 (t_c − t)))^(3/8) (G𝓜/c³)^(−5/8), written out here independently of the physics module;
-    // GM☉/c³ from the IAU 2015 nominal GM☉ = 1.3271244e20 m³ s⁻² and the exact c.
-    const sunTimeS = 1.3271244e20 / 299_792_458 ** 3;
-    const chirp = (mc: number, tc: number, t: number) => (1 / Math.PI) * (5 / (256 * (tc - t))) ** (3 / 8) * (sunTimeS * mc) ** (-5 / 8);
+  it("samples tracks from the 3.5PN TaylorT4 chirp with the requested noise", () => {
+    // The PN evolution itself is checked against an independent scipy integration in tests/physics/chirp-fit-pn.test.ts.
+    const eta = Math.min(0.25, (1.25 / 2.9) ** (5 / 3));
+    const chirp = (mc: number, tc: number, t: number) => pnChirpFrequencyAt(mc, eta, tc, t);
     const plan = { chirpMassDetectorFrame: 1.25, totalMassDetectorFrame: 2.9, coalescenceTimeS: 0.003, sampleCount: 500 };
     const clean = makeTrack(new FeedRandom("track"), { ...plan, noiseFraction: 0 });
     // Times are rounded to 1 µs and frequencies to 0.1 mHz in the body, hence a relative tolerance.

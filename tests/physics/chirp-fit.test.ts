@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { fitDerivativeTrack } from "@/lib/physics/chirp-fit-derivative";
-import { evaluate, gaussNewton, inverseNormalOf } from "@/lib/physics/chirp-fit-model";
+import { evaluate, gaussNewton, inverseNormalOf, leadingOrderEvaluator } from "@/lib/physics/chirp-fit-model";
 import { fitTimeTrack } from "@/lib/physics/chirp-fit-time";
 import { chirpMassFromComponents } from "@/lib/physics/chirp";
 import { syntheticDerivativeTrack, syntheticTimeTrack } from "./track-helpers";
@@ -97,7 +97,7 @@ describe("fitTimeTrack on long tracks (start from a subsample, then the full dat
         if (!fit.ok) throw new Error(fit.detail);
         const { referenceFrequencyHz, amplitudePerS } = fit.value.model;
         const logA = Math.log(amplitudePerS);
-        const converged = gaussNewton(samples, referenceFrequencyHz, { logA, tc: fit.value.coalescenceTimeS }, 1e-9);
+        const converged = gaussNewton(samples, leadingOrderEvaluator(samples, referenceFrequencyHz), { logA, tc: fit.value.coalescenceTimeS }, 1e-9);
         if (!converged.ok) throw new Error(converged.detail);
         // 𝓜 ∝ A^(3/5), so sd(ln A) = (5/3) sd(𝓜)/𝓜.
         const logASd = ((5 / 3) * fit.value.chirpMassDetectorFrameSd) / fit.value.chirpMassDetectorFrame;

@@ -43,7 +43,7 @@ function expectNullWithReason(derived: Derived) {
 
 describe("computeDerived", () => {
   it("assembles an early-warning neutron-star pair", () => {
-    const derived = computeDerived(earlyWarning, defaultPhysicsSettings, "N1/ew-1/1");
+    const derived = computeDerived(earlyWarning, { ...defaultPhysicsSettings, chirpModel: "leading-order" }, "N1/ew-1/1");
     expectNullWithReason(derived);
     expect(derived.chirpMass?.detectorFrame.value).toBeDefined();
     const fitted = derived.chirpMass?.detectorFrame;
@@ -69,7 +69,7 @@ describe("computeDerived", () => {
   });
 
   it("keeps plot arrays small and the JSON free of NaN/Infinity", () => {
-    const derived = computeDerived(earlyWarning, defaultPhysicsSettings, "N1/ew-1/1");
+    const derived = computeDerived(earlyWarning, { ...defaultPhysicsSettings, chirpModel: "leading-order" }, "N1/ew-1/1");
     expect(derived.plot?.kind).toBe("frequency-vs-time");
     if (derived.plot?.kind !== "frequency-vs-time") return;
     expect(derived.plot.curve.tS.length).toBeLessThanOrEqual(200);

@@ -4,7 +4,7 @@ import type { SQLiteTable } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db";
 import { candidateRevisions, candidates, deadLetters, derivedQuantities, events, followUpTasks } from "@/db/schema";
 import { signFeedBody } from "@/lib/feed/signature";
-import { chirpFrequencyAt } from "@/lib/physics";
+import { chirpMassFromComponents, pnChirpFrequencyAt } from "@/lib/physics";
 import type { FeedCandidate } from "@/lib/validations/feed";
 
 export const testSecret = "feed-test-secret-0123456789-abcdefghijklmnop";
@@ -28,8 +28,8 @@ export function setTestEnvironment(): void {
 let counter = 0;
 
 /**
- * A small valid feed body: a neutron-star pair whose track follows the leading-order chirp
- * (Peters & Mathews 1963) for a detector-frame chirp mass of 1.2 M☉, merging at eventTime.
+ * A small valid feed body: a neutron-star pair whose track follows the 3.5PN TaylorT4 chirp of its own
+ * component masses (1.5 + 1.3 M☉, detector frame), reaching the ISCO at eventTime.
  */
 export function samplePayload(overrides: Partial<FeedCandidate> = {}): FeedCandidate {
   counter += 1;
@@ -43,7 +43,7 @@ export function samplePayload(overrides: Partial<FeedCandidate> = {}): FeedCandi
     detectors: ["N1", "S1"],
     networkSnr: 12.5,
     falseAlarmRatePerYear: 0.01,
-    frequencyTrack: { t, f: t.map((time) => chirpFrequencyAt(1.2, 0, time)) },
+    frequencyTrack: { t, f: t.map((time) => pnChirpFrequencyAt(chirpMassFromComponents(1.5, 1.3), (1.5 * 1.3) / 2.8 ** 2, 0, time)) },
     masses: { m1: { mean: 1.5, sd: 0.1 }, m2: { mean: 1.3, sd: 0.1 } },
     distanceMpc: { mean: 120, sd: 30 },
     ...overrides,
