@@ -1,5 +1,5 @@
 import type { Stage } from "@/db/schema";
-import { chirpFrequencyAt, chirpMassFromComponents } from "@/lib/physics";
+import { chirpMassFromComponents, pnChirpFrequencyAt } from "@/lib/physics";
 import type { FeedCandidate } from "@/lib/validations/feed";
 
 export interface PayloadOptions {
@@ -16,7 +16,7 @@ export interface PayloadOptions {
 }
 
 /**
- * A feed payload for a fictional candidate whose track follows the leading-order chirp exactly
+ * A feed payload for a fictional candidate whose track follows the 3.5PN TaylorT4 chirp of its masses exactly
  * (Peters & Mathews 1963, through lib/physics), so the fit has something real to find.
  */
 export function candidatePayload(o: PayloadOptions): FeedCandidate {
@@ -29,7 +29,7 @@ export function candidatePayload(o: PayloadOptions): FeedCandidate {
   for (let i = 0; i < 64; i++) {
     const ti = -span + (i * (span - 0.05)) / 63;
     t.push(Number(ti.toFixed(4)));
-    f.push(Number(chirpFrequencyAt(chirpMass, 0, ti).toFixed(3)));
+    f.push(Number(pnChirpFrequencyAt(chirpMass, (mass1 * mass2) / (mass1 + mass2) ** 2, 0, ti).toFixed(3)));
   }
   return {
     source: "test-pipe",
