@@ -6,7 +6,6 @@
  * Usage: npm run bench:board   (BENCH_SKIP_BUILD=1 reuses .next-bench-board; BENCH_CARDS=500; BENCH_RUNS=5)
  */
 import { execFileSync } from "node:child_process";
-import { randomBytes } from "node:crypto";
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -14,10 +13,10 @@ import { gzipSync } from "node:zlib";
 import type { Response as PlaywrightResponse } from "playwright-core";
 import { closeDb, getDb } from "@/db";
 import { migrateDatabase } from "@/db/migrate";
-import { findUserByEmail, seedDemo } from "@/lib/seed/demo";
-import { seedBoardCandidates } from "../tests/boards/helpers/seed-board";
-import { launchBrowser } from "../tests/e2e/browser";
-import { freePort, startProcess, stopProcess, waitForHttp } from "../tests/e2e/server";
+import { findUserByEmail, seedDemo } from "@/scripts/demo/demo";
+import { seedBoardCandidates } from "@/tests/support/seed-board";
+import { launchBrowser } from "@/tests/support/browser";
+import { freePort, productionEnv, startProcess, stopProcess, waitForHttp } from "@/tests/support/server";
 
 const distDir = ".next-bench-board";
 const cards = Number(process.env.BENCH_CARDS ?? 500);
@@ -59,16 +58,9 @@ const work = mkdtempSync(path.join(tmpdir(), "chirpdesk-bench-board-"));
 const databaseUrl = `file:${path.join(work, "bench.db")}`;
 await seed(databaseUrl);
 const port = await freePort();
-const env = {
-  NODE_ENV: "production",
-  NEXT_TELEMETRY_DISABLED: "1",
-  NEXT_DIST_DIR: distDir,
-  DATABASE_URL: databaseUrl,
-  NEXTAUTH_URL: `http://localhost:${port}`,
-  NEXTAUTH_SECRET: randomBytes(32).toString("base64url"),
-  FEED_SIGNING_SECRET: randomBytes(32).toString("base64url"),
-  ACK_LINK_SECRET: randomBytes(32).toString("base64url"),
-};
+// Every variable the server checks, generated here, so the benchmark runs on a fresh clone without .env.local.
+// No worker runs, so nothing is mailed: the SMTP address only has to parse.
+const env = productionEnv({ port, databaseUrl, smtpPort: 2, distDir });
 const server = startProcess("node", ["node_modules/next/dist/bin/next", "start", "-p", String(port)], env, "bench");
 const base = `http://localhost:${port}`;
 const browser = await launchBrowser({ viewport: { width: 1440, height: 900 } });

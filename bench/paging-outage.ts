@@ -6,7 +6,7 @@ import { decryptWebPushPayload, type BrowserSubscriptionKeys } from "@/fakes/pus
 import type { FakePush } from "@/fakes/push/server";
 import type { FakeSmtp } from "@/fakes/smtp/server";
 import { signFeedBody } from "@/lib/feed/signature";
-import { pagingPayload } from "@/tests/paging/support/payload";
+import { pagingPayload } from "@/tests/support/paging-payload";
 
 interface OutageRun {
   push: FakePush;

@@ -19,7 +19,7 @@ import { startFakePush } from "@/fakes/push/server";
 import { startFakeSmtp } from "@/fakes/smtp/server";
 import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
 import { signFeedBody } from "@/lib/feed/signature";
-import { pagingPayload } from "@/tests/paging/support/payload";
+import { pagingPayload } from "@/tests/support/paging-payload";
 import { runOutage } from "./paging-outage";
 
 const { values } = parseArgs({
@@ -61,7 +61,7 @@ const registered = push.registerSubscription();
 const keys = makeSubscriptionKeys();
 await db.insert(pushSubscriptions).values({ userId: primary.id, endpoint: registered.endpoint, ...keys.keys, label: "bench" });
 
-const worker = spawn(process.execPath, ["--import", "tsx", "lib/notify/worker-main.ts"], { env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "inherit"] });
+const worker = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], { env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "inherit"] });
 await new Promise<void>((resolve) => worker.stdout?.on("data", (c: Buffer) => c.toString().includes("running") && resolve()));
 
 const ingest = createFeedIngestHandler();

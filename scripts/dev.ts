@@ -21,7 +21,7 @@ const commands: ConcurrentlyCommandInput[] = [
   { name: "app", command: `node --import ./server/peer-address.mjs node_modules/next/dist/bin/next dev -p ${port}`, prefixColor: "blue" },
 ];
 if (existsSync("fakes/run-all.ts")) commands.push({ name: "fakes", command: "tsx fakes/run-all.ts", prefixColor: "magenta" });
-if (existsSync("lib/notify/worker-main.ts")) commands.push({ name: "worker", command: "tsx lib/notify/worker-main.ts", prefixColor: "green" });
+if (existsSync("scripts/worker.ts")) commands.push({ name: "worker", command: "tsx scripts/worker.ts", prefixColor: "green" });
 if (existsSync("fakes/feed/cli.ts") && process.env.DEV_FEED !== "0") {
   commands.push({
     name: "feed",

@@ -1,4 +1,4 @@
-import { launchBrowser } from "../tests/e2e/browser";
+import { launchBrowser } from "@/tests/support/browser";
 
 /**
  * Signs in and screenshots a page, for looking at the product as a person would.

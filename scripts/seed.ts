@@ -1,8 +1,7 @@
 import { closeDb, getDb } from "@/db";
 import { migrateDatabase } from "@/db/migrate";
-import { seedDemo } from "@/lib/seed/demo";
-import { seedPastCandidates } from "@/lib/seed/candidates";
-import { demoPeople } from "@/lib/seed/scenario";
+import { seedDemo } from "@/scripts/demo/demo";
+import { demoPeople } from "@/scripts/demo/scenario";
 import { loadEnvFile } from "./ensure-env";
 
 /** Migrates, then seeds the demo scenario when the database is empty. Refuses in production unless SEED_DEMO=1. */
@@ -13,6 +12,8 @@ export async function runSeed(): Promise<void> {
   }
   const db = await getDb();
   await migrateDatabase(db);
+  // The past week is fed through the fake feed's generator: loaded only when seeding, never in the `npm start` graph.
+  const { seedPastCandidates } = await import("./demo/candidates");
   const result = await seedDemo(db, { seedCandidates: seedPastCandidates });
   console.log(result.seeded ? `demo scenario seeded (${result.candidates} past candidates)` : "database already has users; demo seed skipped");
 }

@@ -22,7 +22,7 @@ await closeDb();
 
 const port = Number(process.env.PORT ?? 3000);
 const commands: ConcurrentlyCommandInput[] = [{ name: "app", command: `node --import ./server/peer-address.mjs node_modules/next/dist/bin/next start -p ${port}` }];
-if (process.env.START_WORKER !== "0") commands.push({ name: "worker", command: "tsx lib/notify/worker-main.ts" });
+if (process.env.START_WORKER !== "0") commands.push({ name: "worker", command: "tsx scripts/worker.ts" });
 const { result } = concurrently(commands, { killOthersOn: ["failure", "success"], prefix: "name" });
 result.then(
   () => process.exit(0),

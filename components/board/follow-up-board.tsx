@@ -7,7 +7,7 @@ import { usePathname, useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { queryKeys } from "@/components/live/query-keys";
 import type { TaskState } from "@/db/schema/tasks";
-import { taskStateIds as taskStates } from "@/lib/triage/states";
+import { taskStates } from "@/db/schema/task-values";
 import { apiFetch } from "@/lib/api-client";
 import type { Role } from "@/lib/auth/roles";
 import type { TaskCard } from "@/lib/data/tasks";

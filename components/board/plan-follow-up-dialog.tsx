@@ -8,7 +8,7 @@ import { SuggestedTasksSlot } from "@/components/candidate/suggested-tasks-slot"
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Field, Input, Select, Textarea } from "@/components/ui/field";
-import { taskKindIds as taskKinds } from "@/lib/triage/states";
+import { taskKinds } from "@/db/schema/task-values";
 import { priorityLabels, taskKindLabels } from "@/lib/triage/task-states";
 import { createTasksBodySchema, type CreateTasksBody, type TaskDraft, type TaskDraftInput } from "@/lib/validations/tasks";
 import type { z } from "zod";

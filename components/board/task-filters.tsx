@@ -4,7 +4,7 @@ import { Search } from "lucide-react";
 import { useEffect, useState } from "react";
 import { Input, Select } from "@/components/ui/field";
 import type { TaskKind } from "@/db/schema/tasks";
-import { taskKindIds as taskKinds } from "@/lib/triage/states";
+import { taskKinds } from "@/db/schema/task-values";
 import { taskKindLabels } from "@/lib/triage/task-states";
 import type { SiteOption } from "./plan-follow-up-dialog";
 

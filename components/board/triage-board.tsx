@@ -20,7 +20,7 @@ import { stageLabels } from "@/components/candidate/stage-badge";
 import { useLiveEvents } from "@/components/live/live-store";
 import { queryKeys } from "@/components/live/query-keys";
 import type { Stage, TriageState } from "@/db/schema/candidates";
-import { triageStateIds as triageStates } from "@/lib/triage/states";
+import { triageStates } from "@/db/schema/candidate-values";
 import { apiFetch } from "@/lib/api-client";
 import { can, hasRole, type Role } from "@/lib/auth/roles";
 import type { BoardCard, BoardData } from "@/lib/data/candidates";

@@ -10,7 +10,7 @@ import { queryKeys } from "@/components/live/query-keys";
 import { Avatar } from "@/components/ui/avatar";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
-import { sourceClassIds as sourceClasses, stageIds as stages, triageStateIds as triageStates } from "@/lib/triage/states";
+import { sourceClasses, stages, triageStates } from "@/db/schema/candidate-values";
 import { apiFetch } from "@/lib/api-client";
 import type { CandidateListPage, CandidateListRow } from "@/lib/data/candidates";
 import { classLabels } from "@/lib/format/classes";

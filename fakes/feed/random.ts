@@ -1,24 +1,20 @@
+import { SeededRandom } from "@/lib/physics/random";
+
 /**
- * The fake feed's own seeded generator: mulberry32 (a public-domain 32-bit generator, common practice for
- * test data) seeded by an FNV-1a hash of a string, with Box–Muller normals (Box & Muller 1958).
+ * The fake feed's seeded source: the product's one seeded generator (xoshiro128**, lib/physics/random.ts) with the
+ * helpers test data wants. Normals are Box–Muller (Box & Muller 1958) so a draw costs two uniforms, as it always has here.
  */
 export class FeedRandom {
-  private state: number;
+  private readonly source: SeededRandom;
   private spare: number | null = null;
 
   constructor(seed: string) {
-    let hash = 0x811c9dc5;
-    for (let i = 0; i < seed.length; i++) hash = Math.imul(hash ^ seed.charCodeAt(i), 16777619);
-    this.state = hash >>> 0;
+    this.source = new SeededRandom(seed);
   }
 
   /** Uniform in [0, 1). */
   next(): number {
-    this.state = (this.state + 0x6d2b79f5) >>> 0;
-    let t = this.state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+    return this.source.nextUint32() / 4294967296;
   }
 
   uniform(low: number, high: number): number {

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { sourceClassIds as sourceClasses, stageIds as stages, triageStateIds as triageStates } from "@/lib/triage/states";
+import { sourceClasses, stages, triageStates } from "@/db/schema/candidate-values";
 
 export const candidateSortKeys = [
   "receivedAt",

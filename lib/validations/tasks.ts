@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { taskKindIds as taskKinds, taskStateIds as taskStates } from "@/lib/triage/states";
+import { taskKinds, taskStates } from "@/db/schema/task-values";
 
 /** An instant from a form or JSON: ISO text or epoch milliseconds; empty means none. */
 const optionalInstant = z

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { triageStateIds as triageStates } from "@/lib/triage/states";
+import { triageStates } from "@/db/schema/candidate-values";
 
 const vias = ["board", "menu", "email", "push", "api"] as const;
 

@@ -11,7 +11,7 @@ import type { BoardData, CandidateListPage, NoteView } from "@/lib/data/candidat
 import type { Roster } from "@/lib/data/triage";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { callRoute, createCaller, type Caller } from "./helpers/api";
-import { candidatePayload } from "./helpers/payload";
+import { candidatePayload } from "@/tests/support/candidate-payload";
 
 let testDb: TestDatabase;
 let shifter: Caller;

@@ -1,4 +1,4 @@
-import { demoPeople } from "@/lib/seed/scenario";
+import { demoPeople } from "@/scripts/demo/scenario";
 import { roleLabels } from "@/lib/auth/roles";
 import { check, type E2EContext } from "./types";
 

@@ -1,5 +1,5 @@
 import type { Locator, Page } from "playwright-core";
-import { candidatePayload } from "../boards/helpers/payload";
+import { candidatePayload } from "@/tests/support/candidate-payload";
 import { check, type E2EContext } from "./types";
 
 /**

@@ -1,5 +1,5 @@
 import { acknowledgeButtonLabel } from "@/lib/notify/ack-copy";
-import { pagingPayload } from "../paging/support/payload";
+import { pagingPayload } from "@/tests/support/paging-payload";
 import { check, type E2EContext } from "./types";
 
 interface ShiftJson {

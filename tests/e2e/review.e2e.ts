@@ -1,5 +1,5 @@
 import type { Page } from "playwright-core";
-import { pagingPayload } from "../paging/support/payload";
+import { pagingPayload } from "@/tests/support/paging-payload";
 import { check, type E2EContext } from "./types";
 
 /**

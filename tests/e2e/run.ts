@@ -6,8 +6,8 @@ import type { Page } from "playwright-core";
 import { startFakePush } from "@/fakes/push/server";
 import { startFakeSmtp } from "@/fakes/smtp/server";
 import { signFeedBody } from "@/lib/feed/signature";
-import { launchBrowser } from "./browser";
-import { freePort, productionEnv, startProcess, stopProcess, waitForHttp } from "./server";
+import { launchBrowser } from "@/tests/support/browser";
+import { freePort, productionEnv, startProcess, stopProcess, waitForHttp } from "@/tests/support/server";
 import type { E2EContext, E2ETest } from "./types";
 
 /**
@@ -40,8 +40,8 @@ const env: Record<string, string> = { ...productionEnv({ port, databaseUrl, smtp
 execFileSync("node_modules/.bin/tsx", ["scripts/seed.ts"], { stdio: "inherit", env: { ...process.env, ...env, NODE_ENV: "development" } });
 
 const server = startProcess("node", ["--import", "./server/peer-address.mjs", "node_modules/next/dist/bin/next", "start", "-p", String(port)], env, "app");
-const worker = existsSync("lib/notify/worker-main.ts")
-  ? startProcess("node_modules/.bin/tsx", ["lib/notify/worker-main.ts"], env, "worker")
+const worker = existsSync("scripts/worker.ts")
+  ? startProcess("node_modules/.bin/tsx", ["scripts/worker.ts"], env, "worker")
   : undefined;
 const baseUrl = `http://localhost:${port}`;
 

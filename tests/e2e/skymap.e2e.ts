@@ -1,6 +1,6 @@
 import path from "node:path";
 import type { Page } from "playwright-core";
-import { candidatePayload } from "../boards/helpers/payload";
+import { candidatePayload } from "@/tests/support/candidate-payload";
 import { check, type E2EContext } from "./types";
 
 const fixture = (name: string) => path.resolve("tests/fixtures/skymap", name);

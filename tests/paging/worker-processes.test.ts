@@ -26,7 +26,7 @@ afterAll(() => h.stop());
 function startWorker(id: string, tuning: Record<string, string> = {}): { child: ChildProcess; ready: Promise<void> } {
   const smtpUrl = h.env.SMTP_URL.replace("smtp://", `smtp://${id}:pw@`);
   // node with tsx's loader, not the tsx launcher: the launcher runs the script in a grandchild a SIGKILL would miss.
-  const child = spawn(process.execPath, ["--import", "tsx", "lib/notify/worker-main.ts"], {
+  const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], {
     env: { ...process.env, ...h.env, SMTP_URL: smtpUrl, DATABASE_URL: h.db.url, WORKER_ID: id, WORKER_POLL_MS: "50", WORKER_LEASE_MS: "1500", WORKER_BATCH: "10", ...tuning },
     stdio: ["ignore", "pipe", "pipe"],
   });

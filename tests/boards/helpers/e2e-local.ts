@@ -7,7 +7,7 @@
 import { mkdirSync, readFileSync } from "node:fs";
 import type { Page } from "playwright-core";
 import boardsE2E from "../../e2e/boards.e2e";
-import { launchBrowser } from "../../e2e/browser";
+import { launchBrowser } from "@/tests/support/browser";
 import { signFeedBody } from "@/lib/feed/signature";
 import type { E2EContext } from "../../e2e/types";
 

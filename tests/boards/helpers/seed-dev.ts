@@ -4,8 +4,8 @@
  */
 import { closeDb, getDb } from "@/db";
 import { migrateDatabase } from "@/db/migrate";
-import { findUserByEmail, seedDemo } from "@/lib/seed/demo";
-import { seedBoardCandidates } from "./seed-board";
+import { findUserByEmail, seedDemo } from "@/scripts/demo/demo";
+import { seedBoardCandidates } from "@/tests/support/seed-board";
 
 const count = Number(process.argv[2] ?? 40);
 const db = await getDb();

@@ -15,7 +15,7 @@ import { createWorker, sendersFromEnv, type WorkerOptions } from "@/lib/notify/w
 import { escalationPolicySchema } from "@/lib/validations/paging";
 import { resetEnvCache } from "@/lib/env";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../../helpers/test-db";
-import { pagingPayload } from "./payload";
+import { pagingPayload } from "@/tests/support/paging-payload";
 
 export const feedSecret = "paging-test-feed-secret-0123456789abcdef";
 export const appUrl = "http://desk.chirpdesk.test";

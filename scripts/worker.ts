@@ -1,9 +1,9 @@
-// `npm run worker` (tsx lib/notify/worker-main.ts): the paging outbox worker, until SIGINT/SIGTERM.
+// `npm run worker` (tsx scripts/worker.ts): the paging outbox worker, until SIGINT/SIGTERM.
 // Several may run at once against one database. Tuning: WORKER_POLL_MS, WORKER_LEASE_MS, WORKER_BATCH,
 // WORKER_CONCURRENCY (sends in flight), WORKER_ID.
 import { closeDb } from "@/db";
-import { loadEnvFile } from "@/scripts/ensure-env";
-import { createWorker } from "./worker";
+import { loadEnvFile } from "./ensure-env";
+import { createWorker } from "@/lib/notify/worker";
 
 loadEnvFile();
 

@@ -4,6 +4,7 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "@/db";
 import { candidates, escalations, notifications, sites, users } from "@/db/schema";
 import { FeedGenerator } from "@/fakes/feed/generator";
+import { FeedRandom } from "@/fakes/feed/random";
 import { toSessionUser, type SessionUser } from "@/lib/auth/roles";
 import { ingestCandidate } from "@/lib/data/ingest";
 import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
@@ -16,25 +17,14 @@ import { demoNetwork } from "./scenario";
 
 const MINUTE = 60_000;
 
-/** A small deterministic random source so the demo week looks the same on every fresh clone. */
-function seeded(seed: number) {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /**
  * A week of past activity, fed through the real ingest, triage and task paths with past clocks, so the boards,
  * candidate pages and the response-time review have something to show. Pages for these past candidates are
  * marked as already delivered, so the worker does not send them again on a fresh start.
  */
 export async function seedPastCandidates(db: Database, now: Date): Promise<number> {
-  const rand = seeded(20261201);
+  const random = new FeedRandom("demo-week-20261201");
+  const rand = () => random.next();
   const people = (await db.select().from(users)).map(toSessionUser);
   const byEmail = new Map(people.map((p) => [p.email, p]));
   const shifters = people.filter((p) => p.role === "shifter");
@@ -145,7 +135,7 @@ async function markPastPagesDelivered(db: Database): Promise<void> {
  */
 async function attachDemoSkymaps(db: Database, candidateIds: string[]): Promise<void> {
   if (candidateIds.length === 0) return;
-  const bytes = new Uint8Array(await readFile(path.join(process.cwd(), "lib/seed/demo-localisation.multiorder.fits.gz")));
+  const bytes = new Uint8Array(await readFile(path.join(process.cwd(), "scripts/demo/demo-localisation.multiorder.fits.gz")));
   const rows = await db
     .select({ id: candidates.id, triageState: candidates.triageState })
     .from(candidates)

@@ -4,7 +4,7 @@ import type { SessionUser } from "@/lib/auth/roles";
 import { createTasks, listSiteOptions } from "@/lib/data/tasks";
 import { transitionCandidate } from "@/lib/data/triage";
 import { taskKinds } from "@/db/schema";
-import { candidatePayload } from "./payload";
+import { candidatePayload } from "./candidate-payload";
 
 /** A deterministic spread of fictional candidates over the board's columns (for the benchmark and local looks). */
 export async function seedBoardCandidates(count: number, now: Date, actor: SessionUser | null, prefix = "BX"): Promise<string[]> {
