@@ -8,6 +8,10 @@ export const eventKinds = {
   candidateRevised: "candidate.revised", // data: { revision, stage, previousRevision }
   candidateRevisionStale: "candidate.revision-stale", // data: { revision, current }
   candidateWithdrawn: "candidate.withdrawn", // data: { revision }
+  triggerJoined: "candidate.trigger-joined", // data: { triggerId, source, externalId, revision, triggerCount }
+  preferredChanged: "candidate.preferred-changed", // data: { fromTriggerId, toTriggerId, source, externalId, reason }
+  triggerSplit: "candidate.trigger-split", // data: { triggerId, fromCandidateId, toCandidateId } (on both candidates)
+  candidatesMerged: "candidate.merged", // data: { fromCandidateId, intoCandidateId, triggerIds } (on both)
   candidateTriaged: "candidate.triaged", // from/to triage state; data: { reason?, via: "board" | "menu" | "email" | "push" | "api" }
   candidateAssigned: "candidate.assigned", // data: { ownerId, previousOwnerId }
   candidateNoteAdded: "candidate.note-added", // data: { noteId }
