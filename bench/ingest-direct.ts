@@ -11,6 +11,7 @@ import {
   insertCreatedEventStatement,
   insertDerivedStatement,
   insertRevisionStatement,
+  insertTriggerStatement,
   lookupStatement,
   type NewCandidateRow,
 } from "@/lib/data/ingest-sql";
@@ -19,7 +20,7 @@ import { derivationSeed, toPhysicsInput } from "@/lib/feed/physics-input";
 import { defaultPhysicsSettings } from "@/lib/physics";
 import { feedCandidateSchema } from "@/lib/validations/feed";
 
-export type DirectRow = Omit<NewCandidateRow, "candidateId" | "revisionId">;
+export type DirectRow = Omit<NewCandidateRow, "candidateId" | "triggerId" | "revisionId">;
 
 export async function precomputeRows(posts: FeedPost[]): Promise<DirectRow[]> {
   const receivedAtMs = Date.now();
@@ -34,13 +35,14 @@ export async function precomputeRows(posts: FeedPost[]): Promise<DirectRow[]> {
 export async function insertDirect(client: Client, rows: DirectRow[]): Promise<number> {
   const started = performance.now();
   for (const source of rows) {
-    const row: NewCandidateRow = { ...source, candidateId: randomUUID(), revisionId: randomUUID() };
+    const row: NewCandidateRow = { ...source, candidateId: randomUUID(), triggerId: randomUUID(), revisionId: randomUUID() };
     await client.execute(lookupStatement(row.payload));
     await client.execute({ sql: "select value from settings where key = ? limit 1", args: ["physics"] });
     const tx = await client.transaction("write");
     try {
       await tx.execute(lookupStatement(row.payload));
       await tx.execute(insertCandidateStatement(row));
+      await tx.execute(insertTriggerStatement(row));
       await tx.execute(insertCreatedEventStatement(row));
       await tx.execute(insertRevisionStatement(row));
       await tx.execute(insertDerivedStatement(row));

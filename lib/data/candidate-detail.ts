@@ -1,4 +1,4 @@
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { getDb } from "@/db";
 import {
   candidateRevisions,
@@ -6,6 +6,7 @@ import {
   derivedQuantities,
   followUpTasks,
   sites,
+  triggers,
   type SourceClass,
   type Stage,
   type TaskKind,
@@ -45,6 +46,23 @@ export interface CandidateTaskSummary {
   cancelledAt: Date | null;
 }
 
+/** One pipeline's report of this signal, as `GET /api/v1/candidates/{id}` lists it. */
+export interface CandidateTriggerSummary {
+  id: string;
+  source: string;
+  externalId: string;
+  revision: number;
+  eventTime: Date;
+  networkSnr: number;
+  falseAlarmRatePerYear: number;
+  preferred: boolean;
+  receivedAt: Date;
+  stage: Stage;
+  withdrawnAt: Date | null;
+  chirpMassDetectorFrame: number | null;
+  detectors: string[];
+}
+
 export interface CandidateDetail {
   id: string;
   /** the current revision number */
@@ -74,7 +92,12 @@ export interface CandidateDetail {
     chirpMassDetectorFrame: number | null;
     dominantClass: SourceClass | null;
   };
+  /** the preferred trigger's revisions */
   revisions: CandidateRevisionSummary[];
+  /** every trigger grouped into this candidate, first received first */
+  triggers: CandidateTriggerSummary[];
+  /** set when a coordinator merged this candidate into another (it then has no triggers) */
+  mergedIntoId: string | null;
   tasks: CandidateTaskSummary[];
   /** the current revision's feed body as received (validated) */
   payload: Record<string, unknown>;
@@ -90,12 +113,12 @@ export async function getCandidateDetail(id: string): Promise<CandidateDetail | 
   const db = await getDb();
   const [candidate] = await db.select().from(candidates).where(eq(candidates.id, id)).limit(1);
   if (!candidate) return null;
-  const [revisionRows, taskRows] = await Promise.all([
+  const [revisionRows, taskRows, triggerRows] = await Promise.all([
     db
       .select({ revision: candidateRevisions, derived: derivedQuantities.derived })
       .from(candidateRevisions)
       .leftJoin(derivedQuantities, eq(derivedQuantities.revisionId, candidateRevisions.id))
-      .where(eq(candidateRevisions.candidateId, id))
+      .where(and(eq(candidateRevisions.candidateId, id), eq(candidateRevisions.triggerId, candidate.preferredTriggerId ?? "")))
       .orderBy(asc(candidateRevisions.revision)),
     db
       .select({ task: followUpTasks, site: { id: sites.id, code: sites.code, name: sites.name } })
@@ -103,6 +126,7 @@ export async function getCandidateDetail(id: string): Promise<CandidateDetail | 
       .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
       .where(eq(followUpTasks.candidateId, id))
       .orderBy(asc(followUpTasks.createdAt)),
+    db.select().from(triggers).where(eq(triggers.candidateId, id)).orderBy(asc(triggers.receivedAt), sql`rowid`),
   ]);
   const people = await loadPeople([
     candidate.ownerId,
@@ -167,6 +191,22 @@ export async function getCandidateDetail(id: string): Promise<CandidateDetail | 
       dominantClass: candidate.dominantClass,
     },
     revisions,
+    triggers: triggerRows.map((t) => ({
+      id: t.id,
+      source: t.source,
+      externalId: t.externalId,
+      revision: t.currentRevision,
+      eventTime: t.eventTime,
+      networkSnr: t.networkSnr,
+      falseAlarmRatePerYear: t.falseAlarmRatePerYear,
+      preferred: t.id === candidate.preferredTriggerId,
+      receivedAt: t.receivedAt,
+      stage: t.stage,
+      withdrawnAt: t.withdrawnAt,
+      chirpMassDetectorFrame: t.chirpMassDetectorFrame,
+      detectors: t.detectors,
+    })),
+    mergedIntoId: candidate.mergedIntoId,
     tasks: taskRows.map(({ task, site }) => ({
       id: task.id,
       kind: task.kind,

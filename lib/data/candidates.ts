@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, gte, inArray, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, gte, inArray, isNull, or, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db";
 import {
   candidateNotes,
@@ -50,6 +50,8 @@ export interface BoardCard {
   /** fitted coalescence time, seconds after eventTime (early warnings count down to it) */
   coalescenceTimeS: number | null;
   liveTaskCount: number;
+  /** how many pipelines' triggers this candidate groups */
+  triggerCount: number;
 }
 
 export interface BoardData {
@@ -88,11 +90,14 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
       .leftJoin(users, eq(users.id, candidates.ownerId))
       .leftJoin(
         candidateRevisions,
-        and(eq(candidateRevisions.candidateId, candidates.id), eq(candidateRevisions.revision, candidates.currentRevision)),
+        and(eq(candidateRevisions.triggerId, candidates.preferredTriggerId), eq(candidateRevisions.revision, candidates.currentRevision)),
       )
       .leftJoin(derivedQuantities, eq(derivedQuantities.revisionId, candidateRevisions.id))
       .where(
-        or(inArray(candidates.triageState, ["new", "acknowledged", "reviewing", "expert"]), gte(candidates.updatedAt, since)),
+        and(
+          isNull(candidates.mergedIntoId),
+          or(inArray(candidates.triageState, ["new", "acknowledged", "reviewing", "expert"]), gte(candidates.updatedAt, since)),
+        ),
       )
       .orderBy(desc(candidates.receivedAt))
       .limit(BOARD_LIMIT),
@@ -123,6 +128,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
         : { bns: pBns, nsbh: pNsbh, bbh: pBbh, lowerGap: pLowerGap },
     coalescenceTimeS: typeof tc === "number" ? tc : null,
     liveTaskCount: Number(n ?? 0),
+    triggerCount: c.triggerCount,
   }));
   return {
     cards,
@@ -173,7 +179,8 @@ const sortColumns: Record<CandidateSortKey, SQL> = {
 /** The candidate list: filter, sort (nulls last) and one page, with the total for the pager. */
 export async function listCandidates(query: CandidateListQuery): Promise<CandidateListPage> {
   const db = await getDb();
-  const where: SQL[] = [];
+  // A candidate merged into another has no triggers of its own left: it leaves the lists.
+  const where: SQL[] = [isNull(candidates.mergedIntoId)];
   if (query.state.length) where.push(inArray(candidates.triageState, query.state));
   if (query.stage.length) where.push(inArray(candidates.stage, query.stage));
   if (query.class.length) where.push(inArray(candidates.dominantClass, query.class));
@@ -182,7 +189,7 @@ export async function listCandidates(query: CandidateListQuery): Promise<Candida
       or(eq(candidates.id, query.q), sql`instr(lower(${candidates.externalId}), lower(${query.q})) > 0`) as SQL,
     );
   }
-  const condition = where.length ? and(...where) : undefined;
+  const condition = and(...where);
   const column = sortColumns[query.sort];
   const direction = query.dir === "asc" ? sql`asc` : sql`desc`;
   const [rows, [totalRow]] = await Promise.all([

@@ -9,20 +9,26 @@ import type { DerivedHeadline } from "@/lib/feed/headline";
 import { revisionHeadline } from "@/lib/feed/physics-input";
 import type { FeedCandidate } from "@/lib/validations/feed";
 
-/** The candidate for (source, externalId), if any, and the stored answer for this revision, if seen before. */
+/**
+ * The trigger for (source, externalId) and its candidate, if any, and the stored answer for this revision, if seen
+ * before: `id` is the candidate's id, `trigger_id` the trigger's.
+ */
 export function lookupStatement(payload: Pick<FeedCandidate, "source" | "externalId" | "revision">): InStatement {
   return {
     sql:
-      "select c.id, r.id as revision_id, d.derived from candidates c " +
-      "left join candidate_revisions r on r.candidate_id = c.id and r.revision = ? " +
+      "select t.candidate_id as id, t.id as trigger_id, c.preferred_trigger_id, r.id as revision_id, d.derived from triggers t " +
+      "join candidates c on c.id = t.candidate_id " +
+      "left join candidate_revisions r on r.trigger_id = t.id and r.revision = ? " +
       "left join derived_quantities d on d.revision_id = r.id " +
-      "where c.source = ? and c.external_id = ? limit 1",
+      "where t.source = ? and t.external_id = ? limit 1",
     args: [payload.revision, payload.source, payload.externalId],
   };
 }
 
 export interface NewCandidateRow {
   candidateId: string;
+  /** the trigger (source, externalId) this revision belongs to */
+  triggerId: string;
   revisionId: string;
   payload: FeedCandidate;
   payloadJson: string;
@@ -35,11 +41,27 @@ export function insertCandidateStatement(row: NewCandidateRow): InStatement {
   const { payload, headline } = row;
   return {
     sql:
-      "insert into candidates (id, source, external_id, current_revision, stage, triage_state, event_time, received_at, " +
-      "updated_at, withdrawn_at, network_snr, false_alarm_rate_per_year, detectors, chirp_mass_detector_frame, dominant_class) " +
-      "values (?, ?, ?, ?, ?, 'new', ?, ?, ?, ?, ?, ?, ?, ?, ?)",
+      "insert into candidates (id, preferred_trigger_id, source, external_id, current_revision, stage, triage_state, event_time, " +
+      "received_at, updated_at, withdrawn_at, network_snr, false_alarm_rate_per_year, detectors, chirp_mass_detector_frame, " +
+      "dominant_class) values (?, ?, ?, ?, ?, ?, 'new', ?, ?, ?, ?, ?, ?, ?, ?, ?)",
     args: [
-      row.candidateId, payload.source, payload.externalId, payload.revision, payload.stage, Date.parse(payload.eventTime),
+      row.candidateId, row.triggerId, payload.source, payload.externalId, payload.revision, payload.stage, Date.parse(payload.eventTime),
+      row.receivedAtMs, row.receivedAtMs, payload.stage === "withdrawn" ? row.receivedAtMs : null, payload.networkSnr,
+      payload.falseAlarmRatePerYear, JSON.stringify(payload.detectors), headline.chirpMassDetectorFrame, headline.dominantClass,
+    ],
+  };
+}
+
+/** A new trigger of the candidate `row.candidateId` (new, or one it joins), its numbers from this first revision. */
+export function insertTriggerStatement(row: NewCandidateRow): InStatement {
+  const { payload, headline } = row;
+  return {
+    sql:
+      "insert into triggers (id, candidate_id, source, external_id, current_revision, stage, event_time, received_at, updated_at, " +
+      "withdrawn_at, network_snr, false_alarm_rate_per_year, detectors, chirp_mass_detector_frame, dominant_class) " +
+      "values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
+    args: [
+      row.triggerId, row.candidateId, payload.source, payload.externalId, payload.revision, payload.stage, Date.parse(payload.eventTime),
       row.receivedAtMs, row.receivedAtMs, payload.stage === "withdrawn" ? row.receivedAtMs : null, payload.networkSnr,
       payload.falseAlarmRatePerYear, JSON.stringify(payload.detectors), headline.chirpMassDetectorFrame, headline.dominantClass,
     ],
@@ -67,8 +89,10 @@ export function insertCreatedEventStatement(row: NewCandidateRow): InStatement {
 export function insertRevisionStatement(row: NewCandidateRow): InStatement {
   const { payload } = row;
   return {
-    sql: "insert into candidate_revisions (id, candidate_id, revision, stage, event_time, received_at, payload) values (?, ?, ?, ?, ?, ?, ?)",
-    args: [row.revisionId, row.candidateId, payload.revision, payload.stage, Date.parse(payload.eventTime), row.receivedAtMs, row.payloadJson],
+    sql:
+      "insert into candidate_revisions (id, candidate_id, trigger_id, revision, stage, event_time, received_at, payload) " +
+      "values (?, ?, ?, ?, ?, ?, ?, ?)",
+    args: [row.revisionId, row.candidateId, row.triggerId, payload.revision, payload.stage, Date.parse(payload.eventTime), row.receivedAtMs, row.payloadJson],
   };
 }
 

@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import type { Transaction } from "@libsql/client";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidates, followUpTasks, type Candidate } from "@/db/schema";
+import { followUpTasks, type Trigger } from "@/db/schema";
 import type { DerivedForFeed } from "@/lib/feed/derive-messages";
 import { derivePool } from "@/lib/feed/derive-pool";
 import { createGroupCommitter, type GroupWrite } from "@/lib/feed/group-commit";
@@ -10,6 +10,8 @@ import { diffHeadlines, type DerivedHeadline, type RevisionHeadline } from "@/li
 import { derivationSeed, revisionHeadline, toPhysicsInput } from "@/lib/feed/physics-input";
 import { eventKinds } from "@/lib/events/kinds";
 import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
+import { joinCandidate } from "@/lib/triggers/join";
+import { settleCandidate } from "@/lib/triggers/settle";
 import type { FeedCandidate } from "@/lib/validations/feed";
 import { appendEvent, type Tx } from "./events";
 import {
@@ -17,19 +19,28 @@ import {
   insertCreatedEventStatement,
   insertDerivedStatement,
   insertRevisionStatement,
+  insertTriggerStatement,
   lookupStatement,
   cardData,
   type NewCandidateRow,
 } from "./ingest-sql";
 import { getSetting } from "./settings";
+import { findCoincidentCandidateId, readCandidateRow, readTrigger, updateTriggerRevision } from "./triggers";
 
-/** created: a new candidate; revised: a new current revision; stale: kept in history only; duplicate: seen before. */
-export type IngestOutcome = "created" | "revised" | "stale" | "duplicate";
+/**
+ * created: a new candidate; joined: a new trigger of an existing candidate (coincident in time); revised: a new
+ * current revision of a trigger; stale: kept in history only; duplicate: seen before.
+ */
+export type IngestOutcome = "created" | "joined" | "revised" | "stale" | "duplicate";
 
 export interface IngestResult {
   status: 200 | 201;
   outcome: IngestOutcome;
+  /** the candidate's id: the same for every trigger of one signal */
   id: string;
+  triggerId: string;
+  /** whether this trigger is now the candidate's preferred one */
+  preferred: boolean;
   revision: number;
   /** the derived quantities as stored: JSON text, so the route answers without serialising them again */
   derivedJson: string;
@@ -55,7 +66,7 @@ export async function ingestCandidate(
   const db = await getDb();
   const stored = await readStoredAnswer(db.$client, payload);
   if (stored) return stored;
-  const settings = await getSetting("physics");
+  const [settings, grouping] = await Promise.all([getSetting("physics"), getSetting("grouping")]);
   derivationsRunning += 1;
   let derived: DerivedForFeed;
   try {
@@ -65,7 +76,13 @@ export async function ingestCandidate(
   }
   for (let attempt = 1; ; attempt++) {
     try {
-      return await writeInGroup({ payload, payloadJson: options.payloadJson, derived, receivedAt });
+      return await writeInGroup({
+        payload,
+        payloadJson: options.payloadJson,
+        derived,
+        receivedAt,
+        coincidenceWindowMs: grouping.coincidenceWindowMs,
+      });
     } catch (error) {
       if (!isUniqueViolation(error) || attempt >= 3) throw error;
       // Another process stored this candidate or revision between our read and our write: read again.
@@ -80,6 +97,7 @@ interface PendingRevision {
   payloadJson: string | undefined;
   derived: DerivedForFeed;
   receivedAt: Date;
+  coincidenceWindowMs: number;
 }
 
 /** Posts whose physics is still running: their writes are on their way to the group commit. */
@@ -95,18 +113,24 @@ const writeInGroup = createGroupCommitter<PendingRevision, IngestResult>(writeOn
 });
 
 async function writeOne(tx: GroupWrite, pending: PendingRevision): Promise<IngestResult> {
-  // Inside the write transaction nobody else can write, so this read decides for good.
+  // Inside the write transaction nobody else can write, so these reads decide for good.
   const found = (await tx.sql.execute(lookupStatement(pending.payload))).rows[0];
-  if (!found) return createCandidate(tx, pending);
-  const stored = storedAnswerFrom(found, pending.payload);
-  if (stored) return stored;
-  return writeRevision(tx, String(found.id), pending);
+  if (found) {
+    const stored = storedAnswerFrom(found, pending.payload);
+    if (stored) return stored;
+    return writeRevision(tx, String(found.trigger_id), pending);
+  }
+  const eventTimeMs = Date.parse(pending.payload.eventTime);
+  const joinId = await findCoincidentCandidateId(tx.sql, eventTimeMs, pending.coincidenceWindowMs);
+  if (joinId) return joinCandidate(tx, rowFor(pending, joinId), pending.derived.json);
+  return createCandidate(tx, pending);
 }
 
-/** The stored rows' fields for this post, for a candidate (new or, with its id, already known). */
-function rowFor(pending: PendingRevision, candidateId: string = randomUUID()): NewCandidateRow {
+/** The stored rows' fields for this post, for a trigger of a candidate (new or, with its id, already known). */
+function rowFor(pending: PendingRevision, candidateId: string = randomUUID(), triggerId: string = randomUUID()): NewCandidateRow {
   return {
     candidateId,
+    triggerId,
     revisionId: randomUUID(),
     payload: pending.payload,
     payloadJson: pending.payloadJson ?? JSON.stringify(pending.payload),
@@ -124,6 +148,8 @@ function storedAnswerFrom(row: LookupRow, payload: Pick<FeedCandidate, "revision
     status: 200,
     outcome: "duplicate",
     id: String(row.id),
+    triggerId: String(row.trigger_id),
+    preferred: row.preferred_trigger_id === row.trigger_id,
     revision: payload.revision,
     derivedJson: typeof row.derived === "string" ? row.derived : "{}",
   };
@@ -139,32 +165,31 @@ async function readStoredAnswer(
 }
 
 /**
- * A revision of a candidate already stored: a new current revision, or (lower than the current one) history only.
- * The revision and its derived quantities are stored with the same statements as a new candidate's.
+ * A revision of a trigger already stored: a new current revision of that trigger, or (lower than its current one)
+ * history only. The revision and its derived quantities are stored with the same statements as a new candidate's.
  */
-async function writeRevision(tx: GroupWrite, candidateId: string, pending: PendingRevision): Promise<IngestResult> {
+async function writeRevision(tx: GroupWrite, triggerId: string, pending: PendingRevision): Promise<IngestResult> {
   const { payload, receivedAt: at } = pending;
-  const [existing] = await tx.orm.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
-  if (!existing) throw new Error("the candidate disappeared inside the write transaction");
+  const trigger = await readTrigger(tx.orm, triggerId);
+  if (!trigger) throw new Error("the trigger disappeared inside the write transaction");
   const { headline } = pending.derived;
-  const outcome: IngestOutcome = payload.revision > existing.currentRevision ? "revised" : "stale";
-  if (outcome === "revised") await reviseCandidate(tx.orm, existing, payload, headline, at);
-  const row = rowFor(pending, existing.id);
+  const outcome: IngestOutcome = payload.revision > trigger.currentRevision ? "revised" : "stale";
+  const row = rowFor(pending, trigger.candidateId, trigger.id);
   await tx.sql.execute(insertRevisionStatement(row));
   await tx.sql.execute(insertDerivedStatement(row));
-  if (outcome === "stale") {
+  let preferred = false;
+  if (outcome === "revised") preferred = await reviseTrigger(tx.orm, trigger, payload, headline, at);
+  else {
+    const candidate = await readCandidateRow(tx.orm, trigger.candidateId);
+    preferred = candidate?.preferredTriggerId === trigger.id;
     await appendEvent(tx.orm, {
       at,
       kind: eventKinds.candidateRevisionStale,
-      candidateId: existing.id,
-      data: { revision: payload.revision, current: existing.currentRevision, stage: payload.stage },
+      candidateId: trigger.candidateId,
+      data: { revision: payload.revision, current: trigger.currentRevision, stage: payload.stage, triggerId: trigger.id, source: trigger.source },
     });
   }
-  return { status: 201, outcome, id: existing.id, revision: payload.revision, derivedJson: pending.derived.json };
-}
-
-function headlineColumns(payload: FeedCandidate, headline: DerivedHeadline) {
-  return { ...revisionHeadline(payload, headline), eventTime: new Date(payload.eventTime) };
+  return { status: 201, outcome, id: trigger.candidateId, triggerId: trigger.id, preferred, revision: payload.revision, derivedJson: pending.derived.json };
 }
 
 /**
@@ -176,6 +201,7 @@ async function createCandidate(tx: GroupWrite, pending: PendingRevision): Promis
   const { payload, derived, receivedAt } = pending;
   const row = rowFor(pending);
   await tx.sql.execute(insertCandidateStatement(row));
+  await tx.sql.execute(insertTriggerStatement(row));
   const eventId = Number((await tx.sql.execute(insertCreatedEventStatement(row))).rows[0]?.id);
   if (!Number.isSafeInteger(eventId)) throw new Error("event insert returned no id");
   await onCandidateIngested(tx.orm, {
@@ -200,10 +226,18 @@ async function createCandidate(tx: GroupWrite, pending: PendingRevision): Promis
   if (payload.stage === "withdrawn") await withdrawCandidate(tx.orm, row.candidateId, payload.revision, receivedAt);
   await tx.sql.execute(insertRevisionStatement(row));
   await tx.sql.execute(insertDerivedStatement(row));
-  return { status: 201, outcome: "created", id: row.candidateId, revision: payload.revision, derivedJson: derived.json };
+  return {
+    status: 201,
+    outcome: "created",
+    id: row.candidateId,
+    triggerId: row.triggerId,
+    preferred: true,
+    revision: payload.revision,
+    derivedJson: derived.json,
+  };
 }
 
-function headlineOfCandidate(row: Candidate): RevisionHeadline {
+function headlineOfTrigger(row: Trigger): RevisionHeadline {
   return {
     stage: row.stage,
     eventTime: row.eventTime.toISOString(),
@@ -215,42 +249,48 @@ function headlineOfCandidate(row: Candidate): RevisionHeadline {
   };
 }
 
-async function reviseCandidate(
-  tx: Tx,
-  existing: Candidate,
-  payload: FeedCandidate,
-  headline: DerivedHeadline,
-  at: Date,
-): Promise<void> {
+/**
+ * A new current revision of one trigger: the trigger's numbers, then the candidate settled again from all its
+ * triggers (the preferred one may change). The candidate is withdrawn only when its last live trigger is; a later
+ * revision that is not a withdrawal reinstates the trigger, and with it the candidate. Answers whether this trigger
+ * is now the preferred one.
+ */
+async function reviseTrigger(tx: Tx, trigger: Trigger, payload: FeedCandidate, headline: DerivedHeadline, at: Date): Promise<boolean> {
   const withdrawn = payload.stage === "withdrawn";
-  await tx
-    .update(candidates)
-    .set({
-      currentRevision: payload.revision,
-      updatedAt: at,
-      // A later revision that is not a withdrawal reinstates a withdrawn candidate.
-      withdrawnAt: withdrawn ? (existing.withdrawnAt ?? at) : null,
-      version: sql`${candidates.version} + 1`,
-      ...headlineColumns(payload, headline),
-    })
-    .where(eq(candidates.id, existing.id));
-  const changes = diffHeadlines(headlineOfCandidate(existing), revisionHeadline(payload, headline));
+  const next = revisionHeadline(payload, headline);
+  await updateTriggerRevision(
+    tx,
+    trigger.id,
+    { ...next, currentRevision: payload.revision, eventTime: new Date(payload.eventTime) },
+    withdrawn ? (trigger.withdrawnAt ?? at) : null,
+    at,
+  );
+  const settled = await settleCandidate(tx, trigger.candidateId, at, "revision");
+  const changes = diffHeadlines(headlineOfTrigger(trigger), next);
   const event = await appendEvent(tx, {
     at,
     kind: eventKinds.candidateRevised,
-    candidateId: existing.id,
-    data: { ...cardData(payload, headline), previousRevision: existing.currentRevision, changes },
+    candidateId: trigger.candidateId,
+    data: {
+      ...cardData(payload, headline),
+      previousRevision: trigger.currentRevision,
+      changes,
+      triggerId: trigger.id,
+      preferred: settled.preferred.id === trigger.id,
+    },
   });
+  // The preferred trigger is withdrawn only when every trigger is (lib/triggers/preferred.ts): paging stops then.
   await onCandidateIngested(tx, {
-    candidateId: existing.id,
+    candidateId: trigger.candidateId,
     eventId: event.id,
     revision: payload.revision,
-    stage: payload.stage,
-    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
+    stage: settled.preferred.stage,
+    falseAlarmRatePerYear: settled.preferred.falseAlarmRatePerYear,
     isNewCandidate: false,
     receivedAt: at,
   });
-  if (withdrawn && !existing.withdrawnAt) await withdrawCandidate(tx, existing.id, payload.revision, at);
+  if (settled.becameWithdrawn) await withdrawCandidate(tx, trigger.candidateId, payload.revision, at);
+  return settled.preferred.id === trigger.id;
 }
 
 /** Cancels the candidate's unfinished follow-up tasks, one event each, and tells paging who held them. */

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { and, desc, eq, type SQL } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidateRevisions, candidates, skymaps, uploads, users, type Skymap } from "@/db/schema";
+import { candidateRevisions, candidates, skymaps, triggers, uploads, users, type Skymap } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { eventKinds } from "@/lib/events/kinds";
 import {
@@ -89,7 +89,7 @@ export async function uploadSkymap(input: SkymapUploadInput): Promise<SkymapUplo
       const [revision] = await tx
         .select({ id: candidateRevisions.id })
         .from(candidateRevisions)
-        .where(and(eq(candidateRevisions.candidateId, candidate.id), eq(candidateRevisions.revision, candidate.currentRevision)))
+        .where(and(eq(candidateRevisions.triggerId, candidate.triggerId ?? ""), eq(candidateRevisions.revision, candidate.currentRevision)))
         .limit(1);
       const [skymap] = await tx
         .insert(skymaps)
@@ -141,12 +141,20 @@ async function findCandidate(target: SkymapTarget) {
   const where =
     "candidateId" in target
       ? eq(candidates.id, target.candidateId)
-      : and(eq(candidates.source, target.source), eq(candidates.externalId, target.externalId));
-  const [row] = await db
-    .select({ id: candidates.id, currentRevision: candidates.currentRevision })
-    .from(candidates)
-    .where(where)
-    .limit(1);
+      : and(eq(triggers.source, target.source), eq(triggers.externalId, target.externalId));
+  // A feed names its own trigger; the map belongs to the candidate that trigger is grouped into.
+  const [row] =
+    "candidateId" in target
+      ? await db
+          .select({ id: candidates.id, currentRevision: candidates.currentRevision, triggerId: candidates.preferredTriggerId })
+          .from(candidates)
+          .where(where)
+          .limit(1)
+      : await db
+          .select({ id: triggers.candidateId, currentRevision: triggers.currentRevision, triggerId: triggers.id })
+          .from(triggers)
+          .where(where)
+          .limit(1);
   if (!row) {
     const what = "candidateId" in target ? target.candidateId : `${target.source}/${target.externalId}`;
     throw new ApiError(404, `candidate ${what} not found`);

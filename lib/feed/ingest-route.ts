@@ -62,7 +62,9 @@ export function createFeedIngestHandler(options: FeedRouteOptions = {}) {
       const unchanged = raw.source === parsed.data.source && raw.externalId === parsed.data.externalId;
       const result = await ingestCandidate(parsed.data, receivedAt, unchanged ? { payloadJson: rawBody } : {});
       // The derived quantities are already JSON text (as stored); splice them in rather than parse and re-serialise.
-      const body = `{"id":${JSON.stringify(result.id)},"revision":${result.revision},"derived":${result.derivedJson},"outcome":"${result.outcome}"}`;
+      const body =
+        `{"id":${JSON.stringify(result.id)},"triggerId":${JSON.stringify(result.triggerId)},"preferred":${result.preferred},` +
+        `"revision":${result.revision},"derived":${result.derivedJson},"outcome":"${result.outcome}"}`;
       return new Response(body, { status: result.status, headers: answerHeaders });
     } catch (error) {
       if (isDatabaseBusy(error)) {

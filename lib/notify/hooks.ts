@@ -8,6 +8,7 @@ import { cancelCandidatePaging, queueNotifications } from "./outbox";
 import type { CandidateSummary } from "./content";
 import { pageNewCandidate, readCandidateSummary } from "./plan";
 import { readPreferencesMany } from "./preferences";
+import { joinPagesLouder, type HeadlineForPaging } from "./repage";
 import { taskListenersBySite } from "./recipients";
 
 /**
@@ -31,6 +32,30 @@ export async function onCandidateIngested(tx: Tx, info: CandidateIngested): Prom
   const now = notifyNow();
   if (info.isNewCandidate) await pageNewCandidate(tx, info, now);
   else if (info.stage === "withdrawn") await cancelCandidatePaging(tx, info.candidateId, "withdrawn by the feed", now);
+}
+
+export interface TriggerJoined {
+  candidateId: string;
+  /** the trigger-joined event */
+  eventId: number;
+  receivedAt: Date;
+  /** the candidate's triage state: once someone has taken it, nobody is paged again */
+  triageState: string;
+  before: HeadlineForPaging;
+  after: HeadlineForPaging;
+}
+
+/**
+ * A trigger joined a candidate that was already paged about: page again only by the re-page rule of
+ * lib/notify/repage.ts (the ladder would now reach people more loudly), and only while the candidate is still new.
+ * Answers whether it paged.
+ */
+export async function onTriggerJoined(tx: Tx, info: TriggerJoined): Promise<boolean> {
+  if (info.triageState !== "new") return false;
+  const now = notifyNow();
+  if (!(await joinPagesLouder(tx, info.before, info.after, info.receivedAt, now))) return false;
+  await pageNewCandidate(tx, { candidateId: info.candidateId, eventId: info.eventId, receivedAt: info.receivedAt, ...info.after }, now);
+  return true;
 }
 
 export interface TasksCancelled {

@@ -37,8 +37,3 @@ export function choosePreferred<T extends RankedTrigger>(triggers: readonly T[],
   for (const t of pool) if (!best || compareTriggers(t, best, rule) < 0) best = t;
   return best;
 }
-
-/** Whether two event times are coincident: |Δt| ≤ window, the edge included. */
-export function isCoincident(eventTimeMs: number, otherMs: number, windowMs: number): boolean {
-  return Math.abs(eventTimeMs - otherMs) <= windowMs;
-}

@@ -73,7 +73,7 @@ describe("ingesting a new candidate", () => {
   });
 
   it("answers derived equal to computeDerived on the same input (settings, seed source/externalId/revision, receipt time)", async () => {
-    const payload = samplePayload({ spins: { chi1: 0.1, chi2: -0.05 } });
+    const payload = samplePayload({ spins: { chi1: 0.1, chi2: -0.05 }, eventTime: "2026-12-01T04:12:00.250Z" });
     const { body } = await post(payload);
     const receivedAt = new Date(clockMs);
     const seed = `${payload.source}/${payload.externalId}/${payload.revision}`;

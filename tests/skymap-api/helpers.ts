@@ -2,9 +2,9 @@ import { mkdtempSync, readdirSync, rmSync, statSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { NextRequest } from "next/server";
-import { count } from "drizzle-orm";
+import { count, eq } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidateRevisions, candidates, skymaps, taskReportFiles, uploads, type Role, type TriageState } from "@/db/schema";
+import { candidateRevisions, candidates, skymaps, taskReportFiles, triggers, uploads, type Role, type TriageState } from "@/db/schema";
 import { createApiToken } from "@/lib/auth/api-tokens";
 import type { SessionUser } from "@/lib/auth/roles";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";
@@ -66,9 +66,25 @@ export async function insertCandidate(options: { triageState?: TriageState; rece
     })
     .returning();
   if (!row) throw new Error("candidate insert returned nothing");
+  // Its one trigger, with the candidate's id, as the triggers migration makes for existing candidates.
+  await db.insert(triggers).values({
+    id: row.id,
+    candidateId: row.id,
+    source: row.source,
+    externalId,
+    currentRevision: 1,
+    stage: row.stage,
+    eventTime: at,
+    receivedAt: at,
+    updatedAt: at,
+    networkSnr: row.networkSnr,
+    falseAlarmRatePerYear: row.falseAlarmRatePerYear,
+    detectors: row.detectors,
+  });
+  await db.update(candidates).set({ preferredTriggerId: row.id }).where(eq(candidates.id, row.id));
   const [revision] = await db
     .insert(candidateRevisions)
-    .values({ candidateId: row.id, revision: 1, stage: "first-look", eventTime: at, receivedAt: at, payload: {} })
+    .values({ candidateId: row.id, triggerId: row.id, revision: 1, stage: "first-look", eventTime: at, receivedAt: at, payload: {} })
     .returning();
   return { id: row.id, source: row.source, externalId, revisionId: revision?.id ?? "" };
 }

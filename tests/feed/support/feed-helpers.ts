@@ -29,7 +29,8 @@ let counter = 0;
 
 /**
  * A small valid feed body: a neutron-star pair whose track follows the 3.5PN TaylorT4 chirp of its own
- * component masses (1.5 + 1.3 M☉, detector frame), reaching the ISCO at eventTime.
+ * component masses (1.5 + 1.3 M☉, detector frame), reaching the ISCO at eventTime. Each sample is its own
+ * signal (event times 10 s apart), so samples never group into one candidate unless a test sets eventTime.
  */
 export function samplePayload(overrides: Partial<FeedCandidate> = {}): FeedCandidate {
   counter += 1;
@@ -39,7 +40,8 @@ export function samplePayload(overrides: Partial<FeedCandidate> = {}): FeedCandi
     externalId: `T261201.${String(counter).padStart(5, "0")}`,
     revision: 1,
     stage: "first-look",
-    eventTime: "2026-12-01T04:12:00.250Z",
+    // A signal of its own: 10 s from the previous sample's, far outside the ±1 s coincidence window.
+    eventTime: new Date(Date.parse("2026-12-01T04:12:00.250Z") - counter * 10_000).toISOString(),
     detectors: ["N1", "S1"],
     networkSnr: 12.5,
     falseAlarmRatePerYear: 0.01,

@@ -73,7 +73,8 @@ export async function startHarness(options: { startMs?: number } = {}) {
     async postCandidate(overrides: Parameters<typeof pagingPayload>[2] = {}): Promise<{ id: string; externalId: string }> {
       posted += 1;
       const externalId = overrides.externalId ?? `PT-${String(posted).padStart(4, "0")}`;
-      const body = JSON.stringify(pagingPayload(externalId, new Date(nowMs - 20_000), overrides));
+      // Each post its own signal (event times 10 s apart), unless the test sets eventTime to group triggers.
+      const body = JSON.stringify(pagingPayload(externalId, new Date(nowMs - 20_000 - posted * 10_000), overrides));
       const res = await ingest(
         new Request("http://localhost/api/v1/feed/candidates", {
           method: "POST",
