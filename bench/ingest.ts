@@ -122,7 +122,7 @@ async function waitForServer(baseUrl: string, server: ChildProcess): Promise<voi
  * client shares the machine's cores with the server, so it uses the lightest client Node has (fetch costs about
  * 2 ms of CPU per 25 KB post here, node:http a fraction of that).
  */
-function postOnce(agent: Agent, baseUrl: string, body: string, signature: Record<string, string>): Promise<number> {
+function postOnce(agent: Agent, baseUrl: string, body: string, signature: Record<string, string>): Promise<{ status: number; outcome: string }> {
   return new Promise((resolve, reject) => {
     const req = request(
       `${baseUrl}/api/v1/feed/candidates`,
@@ -132,8 +132,10 @@ function postOnce(agent: Agent, baseUrl: string, body: string, signature: Record
         headers: { "content-type": "application/json", "content-length": Buffer.byteLength(body), ...signature },
       },
       (res) => {
-        res.on("data", () => undefined);
-        res.on("end", () => resolve(res.statusCode ?? 0));
+        // Only the answer's tail is kept: "outcome" is its last field (created, joined, …).
+        let tail = "";
+        res.on("data", (chunk: Buffer) => void (tail = (tail + chunk.toString("latin1")).slice(-64)));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, outcome: /"outcome":"(\w+)"/.exec(tail)?.[1] ?? "-" }));
         res.on("error", reject);
       },
     );
@@ -146,22 +148,24 @@ async function postAll(baseUrl: string, posts: FeedPost[], secret: string) {
   const agent = new Agent({ keepAlive: true, maxSockets: concurrency });
   const latencies: number[] = [];
   const statuses = new Map<number, number>();
+  const outcomes = new Map<string, number>();
   let next = 0;
   const worker = async () => {
     while (next < posts.length) {
       const post = posts[next++];
       if (!post) break;
       const started = performance.now();
-      const status = await postOnce(agent, baseUrl, post.rawBody, signFeedBody(secret, post.rawBody, Date.now()));
+      const { status, outcome } = await postOnce(agent, baseUrl, post.rawBody, signFeedBody(secret, post.rawBody, Date.now()));
       latencies.push(performance.now() - started);
       statuses.set(status, (statuses.get(status) ?? 0) + 1);
+      outcomes.set(outcome, (outcomes.get(outcome) ?? 0) + 1);
     }
   };
   const started = performance.now();
   await Promise.all(Array.from({ length: concurrency }, worker));
   const wallMs = performance.now() - started;
   agent.destroy();
-  return { latencies, statuses, wallMs };
+  return { latencies, statuses, outcomes, wallMs };
 }
 
 async function main(): Promise<void> {
@@ -236,6 +240,8 @@ async function main(): Promise<void> {
     console.log("\nHTTP ingest (next start, production build)");
     console.log(`  posts            ${posts.length} at concurrency ${concurrency}, mean body ${(meanBytes / 1024).toFixed(1)} KiB`);
     console.log(`  statuses         ${[...served2.statuses].map(([s, n]) => `${s}×${n}`).join(", ")}`);
+    // Grouping is on: a post whose event time falls within the coincidence window of an earlier one joins it.
+    console.log(`  outcomes         ${[...served2.outcomes].map(([o, n]) => `${o}×${n}`).join(", ")}`);
     console.log(`  latency p50      ${percentile(sorted, 50).toFixed(1)} ms`);
     console.log(`  latency p99      ${percentile(sorted, 99).toFixed(1)} ms`);
     console.log(`  latency max      ${(sorted.at(-1) ?? Number.NaN).toFixed(1)} ms`);

@@ -86,6 +86,13 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
         <span className="font-mono text-xs text-muted" aria-label={`Detectors ${card.detectors.join(", ")}`}>
           {card.detectors.join(" ")}
         </span>
+        <span
+          className={card.triggerCount > 1 ? "text-xs text-fg" : "text-xs text-faint"}
+          title="Search pipelines that reported this signal (their triggers are grouped into this candidate)"
+          data-testid="pipeline-count"
+        >
+          {card.triggerCount} pipeline{card.triggerCount === 1 ? "" : "s"}
+        </span>
         {card.liveTaskCount > 0 ? <span className="text-xs text-accent">{card.liveTaskCount} task{card.liveTaskCount === 1 ? "" : "s"}</span> : null}
         <span className="ml-auto flex items-center gap-1.5">
           {card.triageState === "new" ? <AckTimer receivedAt={card.receivedAt} deadlines={deadlines} /> : null}

@@ -10,17 +10,32 @@ const triage = (s: string | null) => (s && s in triageLabels ? triageLabels[s as
 const task = (s: string | null) => (s && s in taskStateLabels ? taskStateLabels[s as TaskState] : (s ?? "?"));
 const str = (v: unknown) => (typeof v === "string" ? v : v === undefined || v === null ? "" : String(v));
 
-/** One audit entry in words. */
-export function describeAudit(e: AuditEntry, people: Map<string, PersonRef>): string {
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+const count = (v: unknown) => (Array.isArray(v) ? v.length : 0);
+
+/** One audit entry in words; `candidateId` is the page's candidate, for entries written on both sides of a move. */
+export function describeAudit(e: AuditEntry, people: Map<string, PersonRef>, candidateId?: string): string {
   const d = e.data ?? {};
   const via = d.via ? ` (via ${str(d.via)})` : "";
   switch (e.kind) {
     case "candidate.created":
       return `Arrived from the feed: revision ${str(d.revision)}, ${str(d.stage)}`;
     case "candidate.revised":
-      return `Revision ${str(d.revision)} arrived (was ${str(d.previousRevision ?? d.currentRevision)}), stage ${str(d.stage)}`;
+      return `${d.source ? `${str(d.source)}: r` : "R"}evision ${str(d.revision)} arrived (was ${str(d.previousRevision ?? d.currentRevision)}), stage ${str(d.stage)}`;
     case "candidate.revision-stale":
       return `Revision ${str(d.revision)} arrived after revision ${str(d.currentRevision ?? d.current)}; kept in the history only`;
+    case "candidate.trigger-joined":
+      return `Trigger ${str(d.externalId)} from ${str(d.source)} joined${d.preferred ? " and is now preferred" : ""} (${plural(Number(d.triggerCount ?? 0), "pipeline", "pipelines")})`;
+    case "candidate.preferred-changed":
+      return `Preferred trigger is now ${str(d.externalId)} from ${str(d.source)} (${str(d.reason)})`;
+    case "candidate.trigger-split":
+      return d.fromCandidateId === candidateId
+        ? `Split ${plural(count(d.triggerIds), "trigger", "triggers")} out into ${d.returnedToMergedCandidate ? "the candidate it was merged from" : "a candidate of its own"}`
+        : `Split out of another candidate (${plural(count(d.triggerIds), "trigger", "triggers")})`;
+    case "candidate.merged":
+      return d.fromCandidateId === candidateId
+        ? "Merged into another candidate; its triggers moved there"
+        : `Another candidate merged into this one (${plural(count(d.triggerIds), "trigger", "triggers")})`;
     case "candidate.withdrawn":
       return "Withdrawn by the feed; open follow-up tasks were cancelled";
     case "candidate.triaged":
@@ -53,7 +68,17 @@ export function describeAudit(e: AuditEntry, people: Map<string, PersonRef>): st
 }
 
 /** Who did what and when, oldest first: the candidate's slice of the append-only event log. */
-export function AuditLog({ entries, people, timeZone }: { entries: AuditEntry[]; people: Map<string, PersonRef>; timeZone: string }) {
+export function AuditLog({
+  entries,
+  people,
+  timeZone,
+  candidateId,
+}: {
+  entries: AuditEntry[];
+  people: Map<string, PersonRef>;
+  timeZone: string;
+  candidateId?: string;
+}) {
   if (entries.length === 0) return <p className="text-sm text-muted">Nothing recorded yet.</p>;
   return (
     <ol className="space-y-2 text-sm" data-testid="audit-log">
@@ -62,7 +87,7 @@ export function AuditLog({ entries, people, timeZone }: { entries: AuditEntry[];
           {e.actor ? <Avatar name={e.actor.name} initials={e.actor.initials} className="mt-0.5 h-5 w-5" /> : <span className="mt-0.5 h-5 w-5 rounded-full border border-line" aria-hidden />}
           <div>
             <p>
-              <span className="font-medium">{e.actor?.name ?? "System"}</span> · {describeAudit(e, people)}
+              <span className="font-medium">{e.actor?.name ?? "System"}</span> · {describeAudit(e, people, candidateId)}
             </p>
             <time className="text-xs text-muted" dateTime={isoUtc(e.at)} title={isoUtc(e.at)}>
               {formatInZone(e.at, timeZone)}

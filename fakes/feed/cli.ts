@@ -50,7 +50,8 @@ async function main(): Promise<void> {
     const detail = typeof body === "string" ? body.slice(0, 120) : body.error ?? `${body.outcome ?? ""} ${body.id ?? ""}`;
     const expected = post.expectedStatuses.includes(outcome.status) ? "" : ` (expected ${post.expectedStatuses.join("/")})`;
     console.log(`[feed] ${outcome.status}${expected} ${post.description}: ${detail.trim()} (${outcome.elapsedMs.toFixed(0)} ms)`);
-    if (sent < count) await sleep(intervalMs, stop.signal);
+    // Another pipeline's report of the same signal follows within seconds, not at the feed's rate.
+    if (sent < count) await sleep(generator.peekCompanion() ? Math.min(intervalMs, 1_500) : intervalMs, stop.signal);
   }
   console.log(`[feed] stopped after ${sent} posts`);
 }

@@ -3,18 +3,30 @@ import { malformBody } from "./malformed";
 import { buildPayload } from "./payload";
 import { drawSource, type FakeSource, type FakeSourceClass } from "./population";
 import { FeedRandom } from "./random";
+import { companionPlan, noiseSource } from "./signals";
 
 export const scenarios = ["mixed", "bns", "nsbh", "bbh", "early-warning", "malformed", "bad-signature"] as const;
 export type Scenario = (typeof scenarios)[number];
 
 /** Our invented pipelines. */
-export const fakeSources = ["pipeline-alpha", "pipeline-beta"] as const;
+export const fakeSources = ["pipeline-alpha", "pipeline-beta", "pipeline-gamma"] as const;
 
 /** good: signed now with the right secret; the others are the ways a signature fails. */
 export type Signing = "good" | "wrong-secret" | "stale" | "missing";
 
 export interface FeedPost {
-  kind: "new" | "revision" | "early-warning" | "early-warning-update" | "withdrawal" | "malformed" | "bad-signature";
+  kind:
+    | "new"
+    /** the same signal from another pipeline, sent right after its "new" post */
+    | "companion"
+    /** a lone trigger from one pipeline with a high false-alarm rate */
+    | "noise"
+    | "revision"
+    | "early-warning"
+    | "early-warning-update"
+    | "withdrawal"
+    | "malformed"
+    | "bad-signature";
   /** one line for the log */
   description: string;
   rawBody: string;
@@ -59,14 +71,23 @@ function externalIdFor(eventTimeMs: number, counter: number): string {
 export class FeedGenerator {
   private readonly rng: FeedRandom;
   private readonly issued: IssuedCandidate[] = [];
+  /** other pipelines' reports of the last new signal, sent on the next calls before anything else */
+  private readonly companions: FeedPost[] = [];
   private counter = 0;
 
   constructor(private readonly options: FeedGeneratorOptions) {
     this.rng = new FeedRandom(`${options.seed}/${options.scenario}`);
   }
 
+  /** Whether the next post is another pipeline's report of the last new signal. */
+  peekCompanion(): boolean {
+    return this.companions.length > 0;
+  }
+
   next(nowMs: number): FeedPost {
     const rng = this.rng;
+    const companion = this.companions.shift();
+    if (companion) return companion;
     switch (this.options.scenario) {
       case "bns":
       case "nsbh":
@@ -98,6 +119,7 @@ export class FeedGenerator {
           if (revision) return revision;
         }
         if (roll < 0.37) return this.earlyWarning(nowMs);
+        if (roll < 0.45) return this.noise(nowMs);
         const r = rng.next();
         return this.newCandidate(nowMs, r < 0.4 ? "bns" : r < 0.6 ? "nsbh" : "bbh");
       }
@@ -129,7 +151,33 @@ export class FeedGenerator {
     };
     this.remember(candidate);
     const payload = this.payloadFor(candidate, "first-look", 1);
+    // Scenarios that test signatures or bodies send one post per signal.
+    if (this.options.scenario === "mixed" || this.options.scenario === sourceClass) {
+      for (const { source, offsetMs } of companionPlan(rng, fakeSources, candidate.source)) {
+        const other: IssuedCandidate = { ...candidate, source, externalId: externalIdFor(eventTimeMs, this.counter++), eventTimeMs: eventTimeMs + offsetMs };
+        this.remember(other);
+        const body = this.payloadFor(other, "first-look", 1);
+        this.companions.push(this.post("companion", `${source} also reports ${candidate.externalId} as ${other.externalId}`, body));
+      }
+    }
     return this.post("new", `new ${sourceClass} ${candidate.externalId}`, payload);
+  }
+
+  private noise(nowMs: number): FeedPost {
+    const rng = this.rng;
+    const eventTimeMs = nowMs - rng.uniform(15_000, 90_000);
+    const candidate: IssuedCandidate = {
+      source: rng.pick(fakeSources),
+      externalId: externalIdFor(eventTimeMs, this.counter++),
+      truth: noiseSource(drawSource(rng, "bbh", this.options.sites), rng),
+      revision: 1,
+      eventTimeMs,
+      withdrawn: false,
+      awaitingFirstLook: false,
+    };
+    this.remember(candidate);
+    const payload = this.payloadFor(candidate, "first-look", 1.5);
+    return this.post("noise", `noise ${candidate.source} ${candidate.externalId}`, payload);
   }
 
   private earlyWarning(nowMs: number): FeedPost {

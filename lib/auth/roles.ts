@@ -28,6 +28,8 @@ export const can = {
   manageSettings: ["coordinator", "admin"],
   readDeadLetters: ["coordinator", "admin"],
   uploadSkymap: ["shifter", "coordinator"],
+  /** split a trigger out of its candidate, merge two candidates */
+  regroupTriggers: ["coordinator"],
   read: ["shifter", "observer", "coordinator", "admin"],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -14,11 +14,13 @@ export interface ReviewFilters {
 }
 
 /**
- * The candidates received in [from, to) (and before `now`), with the filters that live in the candidates table;
+ * The candidates received in [from, to) (and before `now`; received_at is the first trigger's receipt), with the filters that live in the candidates table;
  * with a site filter, only candidates with a task at that site.
  */
 function candidateSet(f: ReviewFilters, nowMs: number): SQL {
   const parts = [sql`c.received_at >= ${f.fromMs} AND c.received_at < ${Math.min(f.toMs, nowMs + 1)}`];
+  // A candidate merged into another is counted there (its triggers and first receipt went with them).
+  parts.push(sql`c.merged_into_id IS NULL`);
   if (f.sourceClass) parts.push(sql`c.dominant_class = ${f.sourceClass}`);
   if (f.stage) parts.push(sql`c.stage = ${f.stage}`);
   if (f.siteId) parts.push(sql`EXISTS (SELECT 1 FROM follow_up_tasks t WHERE t.candidate_id = c.id AND t.site_id = ${f.siteId})`);

@@ -4,9 +4,9 @@
  * use cases that combine them are in lib/triggers/.
  */
 import type { Transaction } from "@libsql/client";
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, between, desc, eq, isNull, ne, sql } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidateRevisions, candidates, triggers, type Candidate, type Trigger } from "@/db/schema";
+import { candidateRevisions, candidates, events, triggers, type Candidate, type Trigger } from "@/db/schema";
 import type { Tx } from "./events";
 
 /**
@@ -122,4 +122,81 @@ export async function revisionIdOf(tx: Tx, triggerId: string, revision: number):
     .where(and(eq(candidateRevisions.triggerId, triggerId), eq(candidateRevisions.revision, revision)))
     .limit(1);
   return row?.id ?? null;
+}
+
+/** A new candidate for one trigger (a split), its headline that trigger's; triage starts over. */
+export async function insertCandidateForTrigger(tx: Tx, t: Trigger, at: Date): Promise<string> {
+  const [row] = await tx
+    .insert(candidates)
+    .values({
+      preferredTriggerId: t.id,
+      source: t.source,
+      externalId: t.externalId,
+      currentRevision: t.currentRevision,
+      stage: t.stage,
+      triageState: "new",
+      eventTime: t.eventTime,
+      receivedAt: t.receivedAt,
+      updatedAt: at,
+      withdrawnAt: t.withdrawnAt,
+      networkSnr: t.networkSnr,
+      falseAlarmRatePerYear: t.falseAlarmRatePerYear,
+      detectors: t.detectors,
+      chirpMassDetectorFrame: t.chirpMassDetectorFrame,
+      dominantClass: t.dominantClass,
+    })
+    .returning({ id: candidates.id });
+  if (!row) throw new Error("candidate insert returned nothing");
+  return row.id;
+}
+
+/**
+ * The merge that brought `triggerId` into `candidateId`, if the candidate it came from is still merged into this
+ * one: that candidate's id and every trigger the merge moved. Read from the merge events (the log is the record).
+ */
+export async function findMergeOrigin(tx: Tx, candidateId: string, triggerId: string): Promise<{ fromCandidateId: string; triggerIds: string[] } | null> {
+  const merges = await tx
+    .select({ data: events.data })
+    .from(events)
+    .where(and(eq(events.candidateId, candidateId), eq(events.kind, "candidate.merged")))
+    .orderBy(desc(events.id));
+  for (const { data } of merges) {
+    const ids = Array.isArray(data?.triggerIds) ? data.triggerIds.map(String) : [];
+    const from = typeof data?.fromCandidateId === "string" ? data.fromCandidateId : null;
+    if (!from || from === candidateId || data?.intoCandidateId !== candidateId || !ids.includes(triggerId)) continue;
+    const source = await readCandidateRow(tx, from);
+    return source?.mergedIntoId === candidateId ? { fromCandidateId: from, triggerIds: ids } : null;
+  }
+  return null;
+}
+
+export interface NearbyCandidate {
+  id: string;
+  externalId: string;
+  source: string;
+  eventTime: Date;
+  triggerCount: number;
+}
+
+/** Live, unmerged candidates with event times within ± spanMs of this one's: what a coordinator might merge. */
+export async function listNearbyCandidates(candidateId: string, eventTime: Date, spanMs: number): Promise<NearbyCandidate[]> {
+  const db = await getDb();
+  return db
+    .select({
+      id: candidates.id,
+      externalId: candidates.externalId,
+      source: candidates.source,
+      eventTime: candidates.eventTime,
+      triggerCount: candidates.triggerCount,
+    })
+    .from(candidates)
+    .where(
+      and(
+        ne(candidates.id, candidateId),
+        isNull(candidates.mergedIntoId),
+        between(candidates.eventTime, new Date(eventTime.getTime() - spanMs), new Date(eventTime.getTime() + spanMs)),
+      ),
+    )
+    .orderBy(asc(candidates.eventTime))
+    .limit(20);
 }

@@ -74,17 +74,21 @@ export const derivedSchema: JsonSchema = {
 
 export const ingestAnswerSchema: JsonSchema = {
   type: "object",
-  required: ["id", "revision", "derived", "outcome"],
+  required: ["id", "triggerId", "preferred", "revision", "derived", "outcome"],
   properties: {
-    id: { type: "string", description: "Chirpdesk's candidate id" },
+    id: { type: "string", description: "Chirpdesk's candidate id: the same for every trigger of one signal" },
+    triggerId: { type: "string", description: "Chirpdesk's id of this trigger (source, externalId) within the candidate" },
+    preferred: { type: "boolean", description: "whether this trigger now speaks for the candidate (its preferred trigger)" },
     revision: { type: "integer", description: "the revision this answer is about (the one posted)" },
     derived: { $ref: "#/components/schemas/Derived" },
     outcome: {
       type: "string",
-      enum: ["created", "revised", "stale", "duplicate"],
+      enum: ["created", "joined", "revised", "stale", "duplicate"],
       description:
-        "created: new candidate (201); revised: now the current revision (201); stale: lower than the current " +
-        "revision, kept in the history only (201); duplicate: this revision was stored before, nothing written (200)",
+        "created: new candidate (201); joined: a new trigger whose event time is within the coincidence window of a " +
+        "live candidate's trigger, grouped into it (201); revised: now this trigger's current revision (201); stale: " +
+        "lower than this trigger's current revision, kept in the history only (201); duplicate: this revision was " +
+        "stored before, nothing written (200)",
     },
   },
 };

@@ -58,6 +58,11 @@ export async function onTriggerJoined(tx: Tx, info: TriggerJoined): Promise<bool
   return true;
 }
 
+/** A candidate merged into another stops paging on its own: the candidate it joined speaks for the signal. */
+export async function onCandidateMerged(tx: Tx, info: { fromCandidateId: string; at: Date }): Promise<void> {
+  await cancelCandidatePaging(tx, info.fromCandidateId, "merged into another candidate", info.at);
+}
+
 export interface TasksCancelled {
   candidateId: string;
   eventId: number;

@@ -38,3 +38,8 @@ export const noteBodySchema = z.strictObject({
   body: z.string().trim().min(1, "write something first").max(5000),
 });
 export type NoteBody = z.infer<typeof noteBodySchema>;
+
+/** `POST /api/v1/candidates/{id}/merge`: the candidate to merge into this one (by Chirpdesk id). */
+export const mergeBodySchema = z.strictObject({
+  candidateId: z.string().trim().min(1).max(64),
+});

@@ -39,10 +39,17 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
   for (let t = start; t < now.getTime() - 30 * MINUTE; t += (3 + rand() * 6) * 60 * MINUTE) {
     const post = generator.next(t);
     if (!post.payload) continue;
-    const receivedAt = new Date(Math.max(t, Date.parse(post.payload.eventTime)) + (4 + rand() * 20) * 1000);
-    setNotifyClock(() => receivedAt.getTime()); // page as it would have been paged then
-    const result = await ingestCandidate(post.payload, receivedAt).finally(() => setNotifyClock(null));
-    if (result.outcome === "created") created.push({ id: result.id, receivedAt: receivedAt.getTime() });
+    let receivedAt = new Date(Math.max(t, Date.parse(post.payload.eventTime)) + (4 + rand() * 20) * 1000);
+    // Other pipelines' reports of the same signal arrive seconds after the first, and join its candidate.
+    for (let payload: typeof post.payload | null = post.payload; payload; ) {
+      const at = receivedAt;
+      setNotifyClock(() => at.getTime()); // page as it would have been paged then
+      const result = await ingestCandidate(payload, at).finally(() => setNotifyClock(null));
+      if (result.outcome === "created") created.push({ id: result.id, receivedAt: at.getTime() });
+      const companion = generator.peekCompanion() ? generator.next(t) : null;
+      payload = companion?.payload ?? null;
+      receivedAt = new Date(at.getTime() + (1 + rand() * 8) * 1000);
+    }
   }
 
   await markPastPagesDelivered(db);

@@ -56,6 +56,37 @@ describe("the fake feed generator", () => {
     }
   });
 
+  it("reports a signal from one to three pipelines within ±0.3 s, and lone noise triggers with high false-alarm rates", () => {
+    const posts = run("mixed", "13", 400);
+    const sizes = new Map<number, number>();
+    let group: NonNullable<(typeof posts)[number]["payload"]>[] = [];
+    const close = () => {
+      if (group.length > 0) sizes.set(group.length, (sizes.get(group.length) ?? 0) + 1);
+      group = [];
+    };
+    for (const post of posts) {
+      if (post.kind !== "companion") close();
+      if (post.kind === "new" && post.payload) group.push(post.payload);
+      if (post.kind === "companion" && post.payload) {
+        const lead = group[0];
+        expect(lead, post.description).toBeDefined();
+        if (!lead) continue;
+        expect(group.map((p) => p.source)).not.toContain(post.payload.source);
+        expect(Math.abs(Date.parse(post.payload.eventTime) - Date.parse(lead.eventTime))).toBeLessThanOrEqual(300);
+        // The same source, measured again: masses within a few spreads, not another signal.
+        expect(Math.abs(post.payload.masses.m1.mean - lead.masses.m1.mean)).toBeLessThan(4 * lead.masses.m1.sd + 0.01);
+        group.push(post.payload);
+      }
+      if (post.kind === "noise") {
+        expect(post.payload?.falseAlarmRatePerYear).toBeGreaterThanOrEqual(3);
+        expect(post.payload?.networkSnr).toBeLessThan(10.5);
+      }
+    }
+    close();
+    expect([...sizes.keys()].sort()).toEqual([1, 2, 3]);
+    expect(posts.filter((p) => p.kind === "noise").length).toBeGreaterThan(5);
+  });
+
   it("samples tracks from the 3.5PN TaylorT4 chirp with the requested noise", () => {
     // The PN evolution itself is checked against an independent scipy integration in tests/physics/chirp-fit-pn.test.ts.
     const eta = Math.min(0.25, (1.25 / 2.9) ** (5 / 3));

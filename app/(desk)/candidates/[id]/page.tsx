@@ -15,16 +15,21 @@ import { StageBadge } from "@/components/candidate/stage-badge";
 import { TasksPanel } from "@/components/candidate/tasks-panel";
 import { trackSeries } from "@/components/candidate/track-data";
 import { TrackPlot } from "@/components/candidate/track-plot";
+import { MergedNotice, TriggersPanel } from "@/components/candidate/triggers-panel";
 import { Panel, PanelTitle } from "@/components/ui/panel";
 import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
 import { getCandidateDetail } from "@/lib/data/candidate-detail";
 import { listCandidateAudit, listNotes, loadPeople } from "@/lib/data/candidates";
 import { listSiteOptions } from "@/lib/data/tasks";
+import { listNearbyCandidates } from "@/lib/data/triggers";
 import { formatInZone } from "@/lib/format/time";
 import type { Derived } from "@/lib/physics/derived-types";
 
 export const dynamic = "force-dynamic";
+
+/** Candidates a coordinator is offered to merge: event times within ten minutes of this one's. */
+const mergeSpanMs = 10 * 60_000;
 
 // The title and the page read the same candidate: once per request.
 const readDetail = cache(getCandidateDetail);
@@ -39,7 +44,13 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
   const { id } = await params;
   const detail = await readDetail(id);
   if (!detail) notFound();
-  const [audit, notes, sites] = await Promise.all([listCandidateAudit(id), listNotes(id), listSiteOptions()]);
+  const canRegroup = hasRole(user, can.regroupTriggers) && detail.mergedIntoId === null;
+  const [audit, notes, sites, nearby] = await Promise.all([
+    listCandidateAudit(id),
+    listNotes(id),
+    listSiteOptions(),
+    canRegroup ? listNearbyCandidates(id, detail.state.eventTime, mergeSpanMs) : Promise.resolve([]),
+  ]);
   const people = await loadPeople(audit.map((e) => (typeof e.data?.ownerId === "string" ? e.data.ownerId : null)));
   // The stored derived JSON has the Derived shape (lib/physics); every block may be null, so it is read defensively.
   const derived = detail.derived as Partial<Derived>;
@@ -68,6 +79,7 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
           </span>
         </p>
       ) : null}
+      {detail.mergedIntoId ? <MergedNotice intoId={detail.mergedIntoId} /> : null}
       <Caution />
       {/* Two columns from xl. Below it one column in source order: the figures and the sky, then triage, class
           and tasks, and the history last (a phone at the telescope should not scroll past the audit log). */}
@@ -77,6 +89,38 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
             <PanelTitle>Key numbers</PanelTitle>
             <KeyNumbers detail={detail} derived={derived} timeZone={tz} />
           </Panel>
+          {detail.triggers.length > 0 ? (
+            <Panel>
+              <PanelTitle>Triggers</PanelTitle>
+              <TriggersPanel
+                candidateId={detail.id}
+                timeZone={tz}
+                canRegroup={canRegroup}
+                rows={detail.triggers.map((t) => ({
+                  id: t.id,
+                  source: t.source,
+                  externalId: t.externalId,
+                  revision: t.revision,
+                  preferred: t.preferred,
+                  stage: t.stage,
+                  withdrawn: t.withdrawnAt !== null,
+                  eventTimeMs: t.eventTime.getTime(),
+                  receivedAtMs: t.receivedAt.getTime(),
+                  networkSnr: t.networkSnr,
+                  falseAlarmRatePerYear: t.falseAlarmRatePerYear,
+                  chirpMassDetectorFrame: t.chirpMassDetectorFrame,
+                  detectors: t.detectors,
+                }))}
+                mergeOptions={nearby.map((c) => ({
+                  id: c.id,
+                  externalId: c.externalId,
+                  source: c.source,
+                  triggerCount: c.triggerCount,
+                  offsetS: (c.eventTime.getTime() - detail.state.eventTime.getTime()) / 1000,
+                }))}
+              />
+            </Panel>
+          ) : null}
           <Panel>
             <PanelTitle>Frequency track and fitted chirp</PanelTitle>
             <TrackPlot series={series} />
@@ -129,7 +173,7 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
           </Panel>
           <Panel>
             <PanelTitle>Audit log</PanelTitle>
-            <AuditLog entries={audit} people={people} timeZone={tz} />
+            <AuditLog entries={audit} people={people} timeZone={tz} candidateId={detail.id} />
           </Panel>
         </div>
       </div>
