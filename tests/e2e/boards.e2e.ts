@@ -9,8 +9,9 @@ import { check, type E2EContext } from "./types";
 export default async function boardsE2E(ctx: E2EContext): Promise<void> {
   const tag = Date.now().toString(36).toUpperCase();
   const names = { mouse: `EM${tag}`, keys: `EK${tag}`, menu: `EN${tag}`, pursue: `EP${tag}` };
-  for (const externalId of Object.values(names)) {
-    const res = await ctx.postCandidate(candidatePayload({ externalId, eventTime: new Date() }));
+  for (const [i, externalId] of Object.values(names).entries()) {
+    // Four signals, not one: event times 5 s apart, outside the ±1 s window that groups triggers.
+    const res = await ctx.postCandidate(candidatePayload({ externalId, eventTime: new Date(Date.now() - i * 5_000) }));
     check(res.status === 201, `feed post for ${externalId} answered ${res.status}: ${JSON.stringify(res.body)}`);
   }
 
