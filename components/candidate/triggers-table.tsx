@@ -61,22 +61,22 @@ export function TriggersTable({ rows, timeZone, action }: { rows: TriggerRow[]; 
                 <td className="py-1.5 pr-3 font-mono text-xs">
                   {row.externalId} <span className="text-faint">r{row.revision}</span>
                 </td>
-                <td className="py-1.5 pr-3 tabular-nums">
+                <td className="whitespace-nowrap py-1.5 pr-3 tabular-nums">
                   <time dateTime={isoUtc(row.eventTimeMs)}>{formatInZone(row.eventTimeMs, timeZone)}</time>
                   <Diff text={d ? `${signed(d.eventTimeOffsetMs / 1000, 3)} s` : null} title="event time minus the preferred trigger's" />
                 </td>
-                <td className="py-1.5 pr-3 text-right tabular-nums">
+                <td className="whitespace-nowrap py-1.5 pr-3 text-right tabular-nums">
                   {row.networkSnr.toFixed(1)}
                   <Diff text={d ? signed(d.networkSnrDelta, 1) : null} title="network SNR minus the preferred trigger's" />
                 </td>
-                <td className="py-1.5 pr-3 text-right tabular-nums">
+                <td className="whitespace-nowrap py-1.5 pr-3 text-right tabular-nums">
                   {formatFalseAlarmRate(row.falseAlarmRatePerYear)}
                   <Diff
                     text={d?.falseAlarmRateRatio != null ? `×${trimmedPrecision(d.falseAlarmRateRatio, 2)}` : null}
                     title="false-alarm rate as a multiple of the preferred trigger's"
                   />
                 </td>
-                <td className="py-1.5 pr-3 text-right tabular-nums">
+                <td className="whitespace-nowrap py-1.5 pr-3 text-right tabular-nums">
                   {row.chirpMassDetectorFrame === null ? "not fitted" : `${trimmedPrecision(row.chirpMassDetectorFrame, 4)} ${SOLAR_MASS_UNIT}`}
                   <Diff
                     text={d?.chirpMassDetectorFrameDelta != null ? `${signed(d.chirpMassDetectorFrameDelta, 3)} ${SOLAR_MASS_UNIT}` : null}
@@ -88,10 +88,10 @@ export function TriggersTable({ rows, timeZone, action }: { rows: TriggerRow[]; 
                     </span>
                   ) : null}
                 </td>
-                <td className="py-1.5 pr-3 text-xs text-muted">
+                <td className="whitespace-nowrap py-1.5 pr-3 text-xs text-muted">
                   <time dateTime={isoUtc(row.receivedAtMs)}>{formatInZone(row.receivedAtMs, timeZone)}</time>
                 </td>
-                {action ? <td className="py-1.5 text-right">{action(row)}</td> : null}
+                {action ? <td className="whitespace-nowrap py-1.5 text-right">{action(row)}</td> : null}
               </tr>
             );
           })}

@@ -2,6 +2,7 @@ import { eq } from "drizzle-orm";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { settings } from "@/db/schema";
+import { groupingSettingsSchema } from "@/lib/validations/grouping";
 import { escalationPolicySchema } from "@/lib/validations/paging";
 import { physicsSettingsSchema } from "@/lib/validations/physics-settings";
 import type { SessionUser } from "@/lib/auth/roles";
@@ -30,15 +31,8 @@ export const settingSchemas = {
     feedLatencyMinutes: z.number().min(0.1).max(60).default(2),
     acknowledgeStepMinutes: z.number().min(0.5).max(240).default(4),
   }),
-  /**
-   * How triggers from several pipelines group into one candidate (lib/triggers/preferred.ts). A new trigger joins
-   * a live candidate with a trigger whose event time is within ± the window (edge included); the preferred trigger
-   * is the lowest false-alarm rate, ties to the highest network SNR, or the other way round.
-   */
-  grouping: z.object({
-    coincidenceWindowMs: z.number().int().min(0).max(10_000).default(1000),
-    preferredBy: z.enum(["lowest-far", "highest-snr"]).default("lowest-far"),
-  }),
+  /** how triggers from several pipelines group into one candidate (lib/validations/grouping.ts) */
+  grouping: groupingSettingsSchema,
   /** who is paged about a new candidate, when, and when not (lib/notify/policy.ts) */
   escalation: escalationPolicySchema,
 } as const;

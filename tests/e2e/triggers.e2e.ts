@@ -8,8 +8,8 @@ import { check, type E2EContext } from "./types";
  */
 export default async function triggersE2E(ctx: E2EContext): Promise<void> {
   const tag = Date.now().toString(36).toUpperCase();
-  // Its own moment: 40 s ago, away from the other browser tests' signals.
-  const eventMs = Date.now() - 40_000;
+  // Its own moment: 7 minutes ago, before this run's other browser tests posted anything (they use "now").
+  const eventMs = Date.now() - 7 * 60_000;
   const first = await ctx.postCandidate({
     ...candidatePayload({ externalId: `GA${tag}`, eventTime: new Date(eventMs), falseAlarmRatePerYear: 0.3 }),
     source: "e2e-pipe-a",
@@ -33,6 +33,7 @@ export default async function triggersE2E(ctx: E2EContext): Promise<void> {
     const count = await card.getByTestId("pipeline-count").innerText();
     check(count.trim() === "2 pipelines", `card pipeline count: "${count}"`);
     ctx.log("the card counts two pipelines");
+    await card.screenshot({ path: `${ctx.artifactsDir}/triggers-card.png` });
 
     await page.goto(`${ctx.baseUrl}/candidates/${candidateId}`);
     const rows = page.locator("[data-testid=trigger-row]");
@@ -41,6 +42,7 @@ export default async function triggersE2E(ctx: E2EContext): Promise<void> {
     const preferred = await page.locator("[data-testid=trigger-row][data-preferred=true]").innerText();
     check(preferred.includes("e2e-pipe-b"), `preferred row: ${preferred}`);
     ctx.log("the page lists both triggers, the lower false-alarm rate preferred");
+    await page.locator("[data-testid=triggers-panel]").screenshot({ path: `${ctx.artifactsDir}/triggers-panel.png` });
 
     await page.getByRole("button", { name: `Split e2e-pipe-a GA${tag} out` }).click();
     await page.waitForFunction(() => document.querySelectorAll("[data-testid=trigger-row]").length === 1, undefined, { timeout: 20_000 });

@@ -1,14 +1,18 @@
 import { PagingSettings } from "@/components/paging/paging-settings";
 import { ApiTokens } from "@/components/settings/api-tokens";
+import { GroupingForm } from "@/components/settings/grouping-form";
 import { ProfileForm } from "@/components/settings/profile-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { Panel, PanelTitle } from "@/components/ui/panel";
+import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
+import { getSetting } from "@/lib/data/settings";
 
 export const metadata = { title: "Settings" };
 
 export default async function SettingsPage() {
   const user = await requirePageUser();
+  const grouping = hasRole(user, can.manageSettings) ? await getSetting("grouping") : null;
   return (
     <div className="max-w-4xl space-y-4">
       <PageHeader title="Settings" description="Your profile, how you are paged, and tokens for scripts." />
@@ -20,6 +24,12 @@ export default async function SettingsPage() {
         <PanelTitle>How you are paged</PanelTitle>
         <PagingSettings role={user.role} />
       </Panel>
+      {grouping ? (
+        <Panel>
+          <PanelTitle>Grouping triggers into candidates</PanelTitle>
+          <GroupingForm initial={grouping} />
+        </Panel>
+      ) : null}
       <Panel>
         <PanelTitle>API tokens</PanelTitle>
         <ApiTokens />
