@@ -9,7 +9,9 @@ import { check, type E2EContext } from "./types";
  */
 export default async function reviewE2E(ctx: E2EContext): Promise<void> {
   const externalId = `RV-E2E-${Date.now().toString(36)}`;
-  const posted = await ctx.postCandidate(pagingPayload(externalId, new Date(Date.now() - 20_000), { source: "review-e2e" }));
+  // A merger 3 minutes back: a signal of its own, clear of the seconds-old ones the browser tests before this post
+  // (within ±1 s of another test's signal it would join that candidate).
+  const posted = await ctx.postCandidate(pagingPayload(externalId, new Date(Date.now() - 3 * 60_000), { source: "review-e2e" }));
   check(posted.status === 201, `feed post answered ${posted.status}`);
   const candidateId = String(posted.body.id);
 

@@ -56,6 +56,12 @@ export default async function triggersE2E(ctx: E2EContext): Promise<void> {
     await page.waitForFunction(() => document.querySelectorAll("[data-testid=trigger-row]").length === 2, undefined, { timeout: 20_000 });
     ctx.log("merged back");
 
+    await page.goto(`${ctx.baseUrl}/settings`);
+    await page.locator("#grouping-window").waitFor({ timeout: 20_000 });
+    check((await page.locator("#grouping-window").inputValue()) === "1000", "the grouping form shows the ±1000 ms default");
+    await page.locator("form:has(#grouping-window)").screenshot({ path: `${ctx.artifactsDir}/triggers-settings.png` });
+    ctx.log("a coordinator sees the grouping settings");
+
     const other = await shifter.context.newPage();
     await ctx.signIn(other, "ada@chirpdesk.test", "demo-shifter");
     await other.goto(`${ctx.baseUrl}/candidates/${candidateId}`);
@@ -63,6 +69,9 @@ export default async function triggersE2E(ctx: E2EContext): Promise<void> {
     check((await other.getByRole("button", { name: /Split .* out/ }).count()) === 0, "a shifter sees no split button");
     check((await other.locator("[data-testid=merge-select]").count()) === 0, "a shifter sees no merge form");
     ctx.log("a shifter sees the table without the controls");
+    await other.goto(`${ctx.baseUrl}/settings`);
+    await other.getByText("API tokens").waitFor({ timeout: 20_000 });
+    check((await other.locator("#grouping-window").count()) === 0, "a shifter was offered the grouping settings");
   } catch (error) {
     await coordinator.context.pages()[0]?.screenshot({ path: `${ctx.artifactsDir}/triggers-coordinator.png`, fullPage: true }).catch(() => undefined);
     throw error;
