@@ -186,7 +186,12 @@ export async function listCandidates(query: CandidateListQuery): Promise<Candida
   if (query.class.length) where.push(inArray(candidates.dominantClass, query.class));
   if (query.q) {
     where.push(
-      or(eq(candidates.id, query.q), sql`instr(lower(${candidates.externalId}), lower(${query.q})) > 0`) as SQL,
+      // Any of its triggers' ids finds a candidate, not only the preferred one's (a pipeline quotes its own id).
+      or(
+        eq(candidates.id, query.q),
+        sql`instr(lower(${candidates.externalId}), lower(${query.q})) > 0`,
+        sql`exists (select 1 from triggers t where t.candidate_id = ${candidates.id} and instr(lower(t.external_id), lower(${query.q})) > 0)`,
+      ) as SQL,
     );
   }
   const condition = and(...where);

@@ -27,7 +27,8 @@ afterAll(() => testDb.cleanup());
 
 async function post(payload: FeedCandidate) {
   const res = await route(feedRequest(JSON.stringify(payload), { nowMs: clockMs }));
-  return (await res.json()) as { id: string; triggerId: string; outcome: string };
+  const body = (await res.json()) as { id: string; triggerId: string; outcome: string };
+  return { ...body, externalId: payload.externalId };
 }
 
 async function call(kind: "split" | "merge", params: Record<string, string>, body?: unknown, as: keyof typeof tokens = "coordinator") {
@@ -118,6 +119,9 @@ describe("merging two candidates", () => {
     expect(board.cards.find((c) => c.id === x.id)?.triggerCount).toBe(3);
     const list = await listCandidates({ state: [], stage: [], class: [], sort: "receivedAt", dir: "desc", page: 1, pageSize: 200 });
     expect(list.rows.map((r) => r.id)).not.toContain(y1.id);
+    // A search by a trigger's own id that is not the preferred one's finds the candidate holding it.
+    const byTrigger = await listCandidates({ state: [], stage: [], class: [], q: y2.externalId, sort: "receivedAt", dir: "desc", page: 1, pageSize: 25 });
+    expect(byTrigger.rows.map((r) => r.id)).toEqual([x.id]);
     // Merging into or from a merged candidate is refused.
     expect((await call("merge", { id: y1.id }, { candidateId: x.id })).status).toBe(409);
     expect((await call("merge", { id: x.id }, { candidateId: x.id })).status).toBe(422);
