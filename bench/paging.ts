@@ -17,7 +17,7 @@ import { pushSubscriptions, shifts, users } from "@/db/schema";
 import { decryptWebPushPayload, makeSubscriptionKeys } from "@/fakes/push/decrypt";
 import { startFakePush } from "@/fakes/push/server";
 import { startFakeSmtp } from "@/fakes/smtp/server";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as ingest } from "@/app/api/v1/feed/candidates/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { pagingPayload } from "@/tests/support/paging-payload";
 import { runOutage } from "./paging-outage";
@@ -64,7 +64,6 @@ await db.insert(pushSubscriptions).values({ userId: primary.id, endpoint: regist
 const worker = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts"], { env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "inherit"] });
 await new Promise<void>((resolve) => worker.stdout?.on("data", (c: Buffer) => c.toString().includes("running") && resolve()));
 
-const ingest = createFeedIngestHandler();
 const answeredAt = new Map<string, number>();
 const externalOf = new Map<string, string>();
 const ingestMs: number[] = [];

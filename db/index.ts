@@ -2,6 +2,8 @@ import { getDatabaseUrl } from "@/lib/env";
 import { openDatabase, type Database } from "./client";
 
 export type { Database } from "./client";
+export type { Tx } from "./tx";
+export { isDatabaseBusy, isUniqueViolation } from "./errors";
 
 interface DbCache {
   url: string;

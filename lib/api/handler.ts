@@ -1,96 +1,117 @@
 import { randomUUID } from "node:crypto";
-import { NextResponse, type NextRequest } from "next/server";
+import { NextRequest, NextResponse } from "next/server";
 import type { z, ZodType } from "zod";
 import { loggableError } from "@/db/loggable-error";
+import { isDatabaseBusy } from "@/db";
+import { hasRole, type SessionUser } from "@/lib/auth/roles";
 import { resolveRequestUser } from "@/lib/auth/session";
-import { hasRole, type Role, type SessionUser } from "@/lib/auth/roles";
+import { feedSigningSecret, verifyFeedSignature } from "@/lib/feed/signature";
 import { readBodyBytes } from "./body";
-import { ApiError, invalid, unauthorized } from "./errors";
+import { ApiError, unauthorized } from "./errors";
+import type { Guard } from "./guards";
+import { DEFAULT_MAX_BODY_BYTES, parseJsonBody, parseParams, parseQuery, type RouteContext } from "./request-input";
 
-/** The request body limit unless a route says otherwise. */
-const DEFAULT_MAX_BODY_BYTES = 1_000_000;
+export type { Guard } from "./guards";
 
-interface HandlerOptions<B extends ZodType | undefined, Q extends ZodType | undefined> {
-  /** Roles allowed to call; every route must say. */
-  roles: readonly Role[];
-  body?: B;
-  query?: Q;
-  maxBodyBytes?: number;
-}
-
+type Schema = ZodType | undefined;
 type Infer<T> = T extends ZodType ? z.infer<T> : undefined;
 
-export interface HandlerContext<B, Q> {
+export type HandlerOptions<G extends Guard, P extends Schema, Q extends Schema, B extends Schema> = G & {
+  /** zod schemas for the path parameters, the query string and the JSON body; each failure is a 422 naming the field */
+  params?: P;
+  query?: Q;
+  body?: B;
+  maxBodyBytes?: number;
+};
+
+/** What the guard established: the person for `{ roles }`, the signed bytes for `{ feedSignature }`. */
+type GuardContext<G> = G extends { roles: readonly unknown[] }
+  ? { user: SessionUser }
+  : G extends { feedSignature: true }
+    ? { raw: Uint8Array<ArrayBuffer> }
+    : object;
+
+export type HandlerContext<G, P, Q, B> = GuardContext<G> & {
   req: NextRequest;
-  user: SessionUser;
-  body: B;
+  params: P;
   query: Q;
-  params: Record<string, string>;
+  body: B;
+  /** the instant the request arrived, from the injected clock (never read the wall clock in a route) */
+  now: Date;
   requestId: string;
+};
+
+/** What a route needs from outside itself; tests pass their own through `route.with({ … })`. */
+export interface RouteDeps {
+  now: () => number;
+  feedSecret: () => string;
 }
 
-type RouteContext = { params?: Promise<Record<string, string | string[]> | undefined> };
+const defaultDeps: RouteDeps = { now: Date.now, feedSecret: () => feedSigningSecret() };
+
+export interface Route {
+  (req: Request, ctx?: RouteContext): Promise<Response>;
+  /** The same route with some dependencies replaced (an injected clock, a feed secret). */
+  with(deps: Partial<RouteDeps>): Route;
+}
 
 /**
- * Wraps a route handler once: resolves the session or bearer token, checks the role, parses input with zod,
- * and turns typed errors into JSON. A handler returns a Response or any JSON-serialisable value (sent as 200).
+ * Wraps a route handler once: authenticates by the declared guard, parses params, query and body with zod, and
+ * turns typed errors into one JSON shape. A handler returns a Response or any JSON-serialisable value (sent as 200).
  */
-export function handler<B extends ZodType | undefined = undefined, Q extends ZodType | undefined = undefined>(
-  options: HandlerOptions<B, Q>,
-  fn: (ctx: HandlerContext<Infer<B>, Infer<Q>>) => Promise<unknown>,
-) {
-  return async (req: NextRequest, routeContext?: RouteContext): Promise<Response> => {
-    const requestId = randomUUID();
-    try {
-      const user = await resolveRequestUser(req.headers);
-      if (!user) throw unauthorized();
-      if (!hasRole(user, options.roles)) {
-        throw new ApiError(403, `your role (${user.role}) may not do this; allowed: ${options.roles.join(", ")}`);
+export function handler<G extends Guard, P extends Schema = undefined, Q extends Schema = undefined, B extends Schema = undefined>(
+  options: HandlerOptions<G, P, Q, B>,
+  fn: (ctx: HandlerContext<G, Infer<P>, Infer<Q>, Infer<B>>) => Promise<unknown>,
+): Route {
+  const build = (deps: RouteDeps): Route => {
+    const route = async (request: Request, routeContext?: RouteContext): Promise<Response> => {
+      const requestId = randomUUID();
+      try {
+        const req = request instanceof NextRequest ? request : new NextRequest(request);
+        const nowMs = deps.now();
+        const limit = options.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES;
+        const guarded = await authenticate(options, req, deps, nowMs, limit);
+        const params = await parseParams(options.params, routeContext);
+        const query = parseQuery(options.query, req);
+        let body: unknown;
+        if (options.body) {
+          const bytes = "raw" in guarded && guarded.raw ? guarded.raw : await readBodyBytes(req, limit);
+          body = parseJsonBody(options.body, Buffer.from(bytes).toString("utf8"));
+        }
+        const ctx = { ...guarded, req, params, query, body, now: new Date(nowMs), requestId };
+        const result = await fn(ctx as HandlerContext<G, Infer<P>, Infer<Q>, Infer<B>>);
+        return result instanceof Response ? result : NextResponse.json(result);
+      } catch (error) {
+        return errorResponse(error, requestId);
       }
-      const params = await readParams(routeContext);
-      const query = options.query ? parseQuery(options.query, req) : undefined;
-      const body = options.body ? await parseJsonBody(options.body, req, options.maxBodyBytes) : undefined;
-      const result = await fn({ req, user, body: body as Infer<B>, query: query as Infer<Q>, params, requestId });
-      return result instanceof Response ? result : NextResponse.json(result);
-    } catch (error) {
-      return errorResponse(error, requestId);
-    }
+    };
+    return Object.assign(route, { with: (more: Partial<RouteDeps>) => build({ ...deps, ...more }) });
   };
+  return build(defaultDeps);
 }
 
-async function readParams(ctx?: RouteContext): Promise<Record<string, string>> {
-  const raw = (ctx?.params ? await ctx.params : undefined) ?? {};
-  return Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v.join("/") : v]));
-}
-
-function parseQuery(schema: ZodType, req: NextRequest): unknown {
-  const parsed = schema.safeParse(Object.fromEntries(req.nextUrl.searchParams));
-  if (!parsed.success) throw invalid(parsed.error, "query");
-  return parsed.data;
-}
-
-/** Reads at most `limit` bytes of text; a larger body is a 413 without reading the rest. */
-export async function readBodyText(req: Request, limit = DEFAULT_MAX_BODY_BYTES): Promise<string> {
-  return Buffer.from(await readBodyBytes(req, limit)).toString("utf8");
-}
-
-export function parseJsonText(text: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch (error) {
-    throw new ApiError(400, `body is not valid JSON: ${(error as Error).message}`);
+async function authenticate(guard: Guard, req: NextRequest, deps: RouteDeps, nowMs: number, limit: number) {
+  if (guard.roles) {
+    const user = await resolveRequestUser(req.headers);
+    if (!user) throw unauthorized();
+    if (!hasRole(user, guard.roles)) {
+      throw new ApiError(403, `your role (${user.role}) may not do this; allowed: ${guard.roles.join(", ")}`);
+    }
+    return { user };
   }
-}
-
-async function parseJsonBody(schema: ZodType, req: NextRequest, limit?: number): Promise<unknown> {
-  const text = await readBodyText(req, limit);
-  const parsed = schema.safeParse(text === "" ? {} : parseJsonText(text));
-  if (!parsed.success) throw invalid(parsed.error);
-  return parsed.data;
+  if (guard.feedSignature) {
+    // The whole body is read first (within the limit) so nothing unsigned is ever parsed.
+    const raw = await readBodyBytes(req, limit);
+    const signature = verifyFeedSignature(deps.feedSecret(), req.headers, raw, nowMs);
+    if (!signature.ok) throw new ApiError(401, `feed signature refused: ${signature.reason}`);
+    return { raw };
+  }
+  return {};
 }
 
 /** One error shape for every route: `{ error, requestId, ...details }`. Unexpected errors are logged, never silent. */
 export function errorResponse(error: unknown, requestId: string = randomUUID()): Response {
+  if (isDatabaseBusy(error)) error = new ApiError(503, "the database is busy; retry shortly", { retryAfterSeconds: 1 });
   if (error instanceof ApiError) {
     const headers: Record<string, string> = {};
     if (typeof error.details?.retryAfterSeconds === "number") headers["Retry-After"] = String(error.details.retryAfterSeconds);

@@ -1,9 +1,6 @@
 import { asc, desc, gt } from "drizzle-orm";
-import { getDb, type Database } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { events, type AppEvent, type NewAppEvent } from "@/db/schema";
-
-/** A database or an open transaction: domain writes take either, so callers compose them in one transaction. */
-export type Tx = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
 
 /** Appends to the audit/event log (never updated, never deleted) and returns the stored row with its id. */
 export async function appendEvent(tx: Tx, event: Omit<NewAppEvent, "id" | "at"> & { at?: Date }): Promise<AppEvent> {

@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { Transaction } from "@libsql/client";
 import { and, eq, inArray, sql } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, isUniqueViolation, type Tx } from "@/db";
 import { followUpTasks, type Trigger } from "@/db/schema";
 import type { DerivedForFeed } from "@/lib/feed/derive-messages";
 import { derivePool } from "@/lib/feed/derive-pool";
@@ -13,7 +13,7 @@ import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
 import { joinCandidate } from "@/lib/triggers/join";
 import { settleCandidate } from "@/lib/triggers/settle";
 import type { FeedCandidate } from "@/lib/validations/feed";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 import {
   insertCandidateStatement,
   insertCreatedEventStatement,
@@ -332,21 +332,4 @@ async function withdrawCandidate(tx: Tx, candidateId: string, revision: number, 
     taskIds: tasks.map((task) => task.id),
     reason: withdrawalReason,
   });
-}
-
-/** The error and its causes as text, codes included (drizzle wraps the driver's error). */
-function describeChain(error: unknown): string {
-  const parts: string[] = [];
-  for (let e = error; e && parts.length < 5; e = (e as { cause?: unknown }).cause) {
-    parts.push(`${String(e)} ${String((e as { code?: unknown }).code ?? "")}`);
-  }
-  return parts.join(" | ");
-}
-
-export function isUniqueViolation(error: unknown): boolean {
-  return /UNIQUE constraint failed|SQLITE_CONSTRAINT_(UNIQUE|PRIMARYKEY)/.test(describeChain(error));
-}
-
-export function isDatabaseBusy(error: unknown): boolean {
-  return /SQLITE_BUSY|database is locked/.test(describeChain(error));
 }

@@ -1,9 +1,8 @@
 import { sql, type SQL } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { factsOf, type Stamp } from "@/lib/review/facts";
 import type { ShiftInfo } from "@/lib/review/groups";
 import type { CandidateFacts, DecisionState } from "@/lib/review/timeline";
-import type { Tx } from "./events";
 
 export interface ReviewFilters {
   fromMs: number;

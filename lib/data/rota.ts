@@ -1,13 +1,13 @@
 import { and, asc, desc, eq, gt, inArray, isNull, lt, lte } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { shifts, users, type Shift } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole, type SessionUser } from "@/lib/auth/roles";
 import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import type { ShiftInput } from "@/lib/validations/rota";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 
 export interface RotaPerson {
   id: string;

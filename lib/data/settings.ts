@@ -1,13 +1,13 @@
 import { eq } from "drizzle-orm";
 import { z } from "zod";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { settings } from "@/db/schema";
 import { groupingSettingsSchema } from "@/lib/validations/grouping";
 import { escalationPolicySchema } from "@/lib/validations/paging";
 import { physicsSettingsSchema } from "@/lib/validations/physics-settings";
 import type { SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 
 /**
  * Coordinator settings, each a zod schema with defaults, so a missing or old row still reads as a whole value.

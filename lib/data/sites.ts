@@ -1,12 +1,12 @@
 import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { siteObservers, sites, users, type Site } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, type SessionUser } from "@/lib/auth/roles";
 import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import type { SiteInput } from "@/lib/validations/sites";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 
 export interface SiteObserver {
   id: string;

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, inArray, or, sql, type SQL } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import {
   candidates,
   followUpTasks,
@@ -16,7 +16,7 @@ import { eventKinds } from "@/lib/events/kinds";
 import { onTasksCancelled, onTasksCreated } from "@/lib/notify/hooks";
 import { allowedTaskMoves, canMoveTask, taskStateLabels } from "@/lib/triage/task-states";
 import type { TaskDraft, TaskListQuery } from "@/lib/validations/tasks";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 
 export interface TaskCard {
   id: string;

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, gt, inArray, isNull, lte, sql } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { alias } from "drizzle-orm/sqlite-core";
 import { candidates, events, shifts, users, type AppEvent, type Candidate, type Role, type TriageState } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
@@ -16,7 +16,7 @@ import {
   triageLabels,
   type TriageVia,
 } from "@/lib/triage/transitions";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 
 export interface TransitionInput {
   actor: SessionUser;

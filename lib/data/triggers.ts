@@ -7,7 +7,7 @@ import type { Transaction } from "@libsql/client";
 import { and, asc, between, desc, eq, isNull, ne, sql } from "drizzle-orm";
 import { getDb } from "@/db";
 import { candidateRevisions, candidates, events, triggers, type Candidate, type Trigger } from "@/db/schema";
-import type { Tx } from "./events";
+import type { Tx } from "@/db";
 
 /**
  * The live candidate with a live trigger nearest in event time to `eventTimeMs`, within ± windowMs (edge

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { followUpTasks, sites, taskReportFiles, taskReports, uploads, users, type Upload } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, type SessionUser } from "@/lib/auth/roles";
@@ -7,7 +7,7 @@ import { requireRole } from "@/lib/auth/require-role";
 import { eventKinds } from "@/lib/events/kinds";
 import { checkReportFileType, removeStored, storeBytes, type StoredFile, type UploadedPart } from "@/lib/storage";
 import { maxReportFileBytes, maxReportFilesPerRequest } from "@/lib/validations/uploads";
-import { appendEvent, type Tx } from "./events";
+import { appendEvent } from "./events";
 
 export interface UploadSummary {
   id: string;

@@ -1,7 +1,7 @@
 import { createHmac, randomUUID, timingSafeEqual } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { ackTokens } from "@/db/schema";
-import type { Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
 
 /** How long a one-click acknowledge link works. */
 export const ackLinkLifetimeMs = 2 * 60 * 60_000;

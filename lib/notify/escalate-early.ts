@@ -1,6 +1,7 @@
 import { and, asc, eq, gt } from "drizzle-orm";
 import { escalations } from "@/db/schema";
-import { appendEvent, type Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
+import { appendEvent } from "@/lib/data/events";
 import { eventKinds } from "@/lib/events/kinds";
 
 /**

@@ -1,6 +1,6 @@
 import { and, eq, inArray } from "drizzle-orm";
 import { followUpTasks, sites } from "@/db/schema";
-import type { Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
 import { appendEvent } from "@/lib/data/events";
 import { eventKinds } from "@/lib/events/kinds";
 import { notifyNow } from "./clock";

@@ -1,6 +1,6 @@
 import { and, eq, inArray } from "drizzle-orm";
 import { ackTokens, escalations, notifications, type Channel, type NewNotification } from "@/db/schema";
-import type { Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
 import { ackLinkSecret, mintAckToken } from "./ack-links";
 import { ackConfirmPath, ackPagePath, appBaseUrl } from "./links";
 

@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { candidates, escalations, users } from "@/db/schema";
-import type { Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
 import { appendEvent } from "@/lib/data/events";
 import { findShiftAt } from "@/lib/data/rota";
 import { getSetting } from "@/lib/data/settings";

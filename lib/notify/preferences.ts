@@ -1,9 +1,8 @@
 import { asc, eq, inArray } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { notificationPreferences, siteObservers, sites, type PagingPreferences } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
-import type { Tx } from "@/lib/data/events";
 import { onCallPrimaryUntil } from "@/lib/data/rota";
 import type { PreferencesInput } from "@/lib/validations/paging";
 

@@ -1,6 +1,6 @@
 import { and, eq, inArray, isNull } from "drizzle-orm";
 import { notificationPreferences, siteObservers, users, type Shift } from "@/db/schema";
-import type { Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
 import type { EscalationTarget } from "@/lib/validations/paging";
 
 export interface Recipient {

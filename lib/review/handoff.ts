@@ -1,7 +1,6 @@
 import { and, eq, isNull, lte } from "drizzle-orm";
-import { getDb } from "@/db";
+import { getDb, type Tx } from "@/db";
 import { notifications, shifts } from "@/db/schema";
-import type { Tx } from "@/lib/data/events";
 import { loadDecisions, loadHandoffRecipients, loadLiveTasks, loadShift } from "@/lib/data/review";
 import { appBaseUrl } from "@/lib/notify/links";
 import { buildHandoffSummary, handoffText, type HandoffSummary } from "./handoff-summary";

@@ -1,6 +1,6 @@
 import { getSetting, type SettingValue } from "@/lib/data/settings";
 import { loadCandidateFacts, loadPeople, loadShift, loadShifts, type ReviewFilters } from "@/lib/data/review";
-import type { Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
 import { reviewCandidates, type CandidateReview } from "./evaluate";
 import { involves } from "./facts";
 import { personRows, shiftRows, type PersonRow, type ShiftRow } from "./groups";

@@ -8,7 +8,8 @@ import { getDb } from "@/db";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { can, type SessionUser } from "@/lib/auth/roles";
 import { requireRole } from "@/lib/auth/require-role";
-import { appendEvent, type Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
+import { appendEvent } from "@/lib/data/events";
 import {
   findMergeOrigin,
   insertCandidateForTrigger,

@@ -1,5 +1,6 @@
 import type { Candidate, Trigger } from "@/db/schema";
-import { appendEvent, type Tx } from "@/lib/data/events";
+import type { Tx } from "@/db";
+import { appendEvent } from "@/lib/data/events";
 import { getSetting } from "@/lib/data/settings";
 import { listTriggersOf, readCandidateRow, writeCandidateFromTriggers } from "@/lib/data/triggers";
 import { eventKinds } from "@/lib/events/kinds";

@@ -7,7 +7,7 @@ import { FeedGenerator } from "@/fakes/feed/generator";
 import { FeedRandom } from "@/fakes/feed/random";
 import { toSessionUser, type SessionUser } from "@/lib/auth/roles";
 import { ingestCandidate } from "@/lib/data/ingest";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { uploadSkymap } from "@/lib/data/skymaps";
 import { claimTask, createTasks, moveTask, reportTask } from "@/lib/data/tasks";
@@ -163,7 +163,7 @@ const generatorSites = () => demoNetwork.detectors.map((d) => d.code);
 async function seedRefusedPosts(sites: string[], now: Date): Promise<void> {
   const key = "demo-seed-signing-key-not-a-secret";
   let clock = now.getTime() - 3 * 24 * 60 * MINUTE;
-  const handle = createFeedIngestHandler({ secret: () => key, now: () => clock });
+  const handle = feedIngest.with({ feedSecret: () => key, now: () => clock });
   const generator = new FeedGenerator({ seed: "refused-week", scenario: "malformed", sites, trackSamples: 120 });
   for (let sent = 0, tries = 0; sent < 3 && tries < 20; tries++) {
     const post = generator.next(clock);

@@ -3,7 +3,7 @@ import path from "node:path";
 import { createClient } from "@libsql/client";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { backupDatabase, restoreDatabase } from "@/db/backup";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { feedRequest, samplePayload, setTestEnvironment } from "../feed/support/feed-helpers";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 
@@ -16,7 +16,7 @@ afterAll(() => testDb.cleanup());
 
 describe("db:backup and db:restore", () => {
   it("copy a database while posts keep arriving: every candidate answered before the backup began is restored", { timeout: 60_000 }, async () => {
-    const ingest = createFeedIngestHandler();
+    const ingest = feedIngest;
     const uploads = path.join(testDb.dir, "uploads");
     mkdirSync(path.join(uploads, "ab"), { recursive: true });
     writeFileSync(path.join(uploads, "ab", "abcdef"), "a stored sky map");

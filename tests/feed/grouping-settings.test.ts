@@ -2,14 +2,14 @@ import { NextRequest } from "next/server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET, PUT } from "@/app/api/v1/settings/grouping/route";
 import { createApiToken } from "@/lib/auth/api-tokens";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import type { FeedCandidate } from "@/lib/validations/feed";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { feedRequest, samplePayload, setTestEnvironment } from "./support/feed-helpers";
 
 let testDb: TestDatabase;
 const clockMs = Date.UTC(2026, 11, 1, 4, 13, 0);
-const route = createFeedIngestHandler({ now: () => clockMs });
+const route = feedIngest.with({ now: () => clockMs });
 const tokens = { coordinator: "", shifter: "" };
 
 beforeAll(async () => {

@@ -5,7 +5,7 @@ import { GET as getCandidate } from "@/app/api/v1/candidates/[id]/route";
 import { getDb } from "@/db";
 import { candidateRevisions, candidates, derivedQuantities, events, followUpTasks } from "@/db/schema";
 import { createApiToken } from "@/lib/auth/api-tokens";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { toPhysicsInput } from "@/lib/feed/physics-input";
 import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
 import type * as Hooks from "@/lib/notify/hooks";
@@ -22,7 +22,7 @@ vi.mock("@/lib/notify/hooks", async (importOriginal) => {
 
 let testDb: TestDatabase;
 let clockMs = Date.UTC(2026, 11, 1, 4, 13, 0);
-const route = createFeedIngestHandler({ now: () => clockMs });
+const route = feedIngest.with({ now: () => clockMs });
 let observerToken = "";
 let observerId = "";
 

@@ -1,7 +1,7 @@
 import { createHmac } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST } from "@/app/api/v1/feed/candidates/route";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { computeFeedSignature, signFeedBody, verifyFeedSignature } from "@/lib/feed/signature";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { feedRequest, rowCounts, samplePayload, setTestEnvironment, testSecret } from "./support/feed-helpers";
@@ -66,7 +66,7 @@ describe("the feed route's signature check", () => {
   it("answers 401 JSON for missing, bad and stale signatures and stores nothing, not even a dead letter", async () => {
     const raw = JSON.stringify(samplePayload());
     const before = await rowCounts();
-    const route = createFeedIngestHandler({ now: () => nowMs });
+    const route = feedIngest.with({ now: () => nowMs });
     const attempts = [
       feedRequest(raw, { unsigned: true }),
       feedRequest(raw, { nowMs, secret: "another-secret-that-is-long-enough-000" }),

@@ -3,7 +3,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { candidates, escalations, events, users } from "@/db/schema";
-import { createAckConfirmHandler } from "@/lib/notify/ack-route";
+import { POST as ackConfirm } from "@/app/ack/[token]/confirm/route";
 import { describeAckLink } from "@/lib/notify/acknowledge";
 import { ackLinkIn, startHarness, type Device, type Harness } from "./support/harness";
 
@@ -31,7 +31,7 @@ beforeEach(() => {
 });
 
 const confirm = (token: string, via?: "push") =>
-  createAckConfirmHandler({ now: h.clock.now })(
+  ackConfirm.with({ now: h.clock.now })(
     new Request(`http://localhost/ack/${token}/confirm${via ? "?via=push" : ""}`, { method: "POST", headers: { accept: "application/json" } }),
     { params: Promise.resolve({ token }) },
   );
@@ -185,7 +185,7 @@ describe("acknowledge links", () => {
 
   it("refuses a link used once already, and a browser form POST is sent back to the page", async () => {
     const token = await freshLink();
-    const form = await createAckConfirmHandler({ now: h.clock.now })(new Request(`http://localhost/ack/${token}/confirm`, { method: "POST" }), {
+    const form = await ackConfirm.with({ now: h.clock.now })(new Request(`http://localhost/ack/${token}/confirm`, { method: "POST" }), {
       params: Promise.resolve({ token }),
     });
     expect(form.status).toBe(303);

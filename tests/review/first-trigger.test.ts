@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { loadCandidateFacts } from "@/lib/data/review";
 import { transitionCandidate } from "@/lib/data/triage";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { setNotifyClock } from "@/lib/notify/clock";
 import { candidateSteps } from "@/lib/review/timeline";
 import { splitTrigger } from "@/lib/triggers/regroup";
@@ -11,7 +11,7 @@ import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers
 
 let testDb: TestDatabase;
 let clockMs = Date.UTC(2026, 11, 3, 2, 0, 0);
-const route = createFeedIngestHandler({ now: () => clockMs });
+const route = feedIngest.with({ now: () => clockMs });
 
 beforeAll(async () => {
   setTestEnvironment();

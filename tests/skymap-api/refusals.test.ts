@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ApiError } from "@/lib/api/errors";
 import { readBodyBytes } from "@/lib/storage";
 import * as uiRoute from "@/app/api/v1/candidates/[id]/skymaps/route";
-import { createFeedSkymapHandler } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/feed-skymap-handler";
+import { POST as feedSkymap } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { fixtureBytes } from "../skymap/fixture-files";
 import { call, createCaller, insertCandidate, multipartBody, rowCounts, setupSkymapTest, storedFiles, type Caller, type SkymapTestEnv } from "./helpers";
@@ -12,7 +12,7 @@ let shifter: Caller;
 let candidate: Awaited<ReturnType<typeof insertCandidate>>;
 const SECRET = "f".repeat(48);
 const NOW_MS = Date.UTC(2030, 2, 20, 12, 0, 0);
-const feedRoute = createFeedSkymapHandler({ now: () => NOW_MS, secret: () => SECRET });
+const feedRoute = feedSkymap.with({ now: () => NOW_MS, feedSecret: () => SECRET });
 
 beforeAll(async () => {
   env = await setupSkymapTest();

@@ -10,7 +10,7 @@ import { sha256Hex, storedPath } from "@/lib/storage";
 import * as displayRoute from "@/app/api/v1/skymaps/[id]/display/route";
 import * as skymapRoute from "@/app/api/v1/skymaps/[id]/route";
 import * as uiRoute from "@/app/api/v1/candidates/[id]/skymaps/route";
-import { createFeedSkymapHandler } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/feed-skymap-handler";
+import { POST as feedSkymap } from "@/app/api/v1/feed/candidates/[source]/[externalId]/skymap/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { fixtureBytes, reference, relativeDifference, separationDeg, type ReferenceMap } from "../skymap/fixture-files";
 import { call, createCaller, insertCandidate, multipartBody, rowCounts, setupSkymapTest, storedFiles, type Caller, type SkymapTestEnv } from "./helpers";
@@ -21,7 +21,7 @@ let coordinator: Caller;
 let observer: Caller;
 const SECRET = "s".repeat(40);
 const NOW_MS = Date.UTC(2030, 2, 20, 12, 0, 0);
-const feedRoute = createFeedSkymapHandler({ now: () => NOW_MS, secret: () => SECRET });
+const feedRoute = feedSkymap.with({ now: () => NOW_MS, feedSecret: () => SECRET });
 
 beforeAll(async () => {
   env = await setupSkymapTest();

@@ -11,7 +11,7 @@ export const dynamic = "force-dynamic";
 
 /**
  * The one-click acknowledge link's landing page. Opening it (GET) only shows what it would do, so mail link
- * scanners and previews that fetch links cannot acknowledge; the button POSTs (see lib/notify/ack-route.ts).
+ * scanners and previews that fetch links cannot acknowledge; the button POSTs (see ./confirm/route.ts).
  */
 export default async function AckPage({ params, searchParams }: { params: Promise<{ token: string }>; searchParams: Promise<{ done?: string }> }) {
   const { token } = await params;

@@ -5,13 +5,12 @@
  */
 import { readFileSync } from "node:fs";
 import { closeDb } from "@/db";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as route } from "@/app/api/v1/feed/candidates/route";
 import { feedRequest } from "./feed-helpers";
 
 async function main(): Promise<void> {
   const [file, startAt] = process.argv.slice(2);
   const bodies = JSON.parse(readFileSync(file ?? "", "utf8")) as string[];
-  const route = createFeedIngestHandler();
   await new Promise((resolve) => setTimeout(resolve, Math.max(0, Number(startAt) - Date.now())));
   const statuses: number[] = [];
   for (const body of bodies) {

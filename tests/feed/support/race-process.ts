@@ -6,13 +6,13 @@
  */
 import { readFileSync } from "node:fs";
 import { closeDb } from "@/db";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { feedRequest } from "./feed-helpers";
 
 async function main(): Promise<void> {
   const [file, startAt, roundMs] = process.argv.slice(2);
   const bodies = JSON.parse(readFileSync(file ?? "", "utf8")) as string[];
-  const route = createFeedIngestHandler();
+  const route = feedIngest;
   const answers: Array<{ status: number; id?: string; outcome?: string }> = [];
   for (const [round, body] of bodies.entries()) {
     const due = Number(startAt) + round * Number(roundMs);

@@ -8,7 +8,7 @@ import { startFakePush, type FakePush } from "@/fakes/push/server";
 import { startFakeSmtp, type FakeSmtp } from "@/fakes/smtp/server";
 import type { SessionUser } from "@/lib/auth/roles";
 import { putSetting } from "@/lib/data/settings";
-import { createFeedIngestHandler } from "@/lib/feed/ingest-route";
+import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { setNotifyClock } from "@/lib/notify/clock";
 import { createWorker, sendersFromEnv, type WorkerOptions } from "@/lib/notify/worker";
@@ -57,7 +57,7 @@ export async function startHarness(options: { startMs?: number } = {}) {
     .values({ startsAt: new Date(nowMs - 3_600_000), endsAt: new Date(nowMs + 8 * 3_600_000), primaryId: primary.id, backupId: backup.id })
     .returning();
 
-  const ingest = createFeedIngestHandler({ now: clock.now, secret: () => feedSecret });
+  const ingest = feedIngest.with({ now: clock.now, feedSecret: () => feedSecret });
   let posted = 0;
 
   return {

@@ -2,15 +2,16 @@ import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { deleteSite, getSite, updateSite } from "@/lib/data/sites";
 import { siteFormSchema } from "@/lib/validations/sites";
+import { idParams } from "@/lib/validations/params";
 
-export const GET = handler({ roles: can.read }, async ({ params }) => ({ site: await getSite(params.id ?? "") }));
+export const GET = handler({ roles: can.read, params: idParams }, async ({ params }) => ({ site: await getSite(params.id) }));
 
 /** Replaces every field (the form always sends them all), observers included. */
-export const PUT = handler({ roles: can.manageSites, body: siteFormSchema }, async ({ user, body, params }) => ({
-  site: await updateSite(user, params.id ?? "", body),
+export const PUT = handler({ roles: can.manageSites, params: idParams, body: siteFormSchema }, async ({ user, body, params }) => ({
+  site: await updateSite(user, params.id, body),
 }));
 
-export const DELETE = handler({ roles: can.manageSites }, async ({ user, params }) => {
-  await deleteSite(user, params.id ?? "");
+export const DELETE = handler({ roles: can.manageSites, params: idParams }, async ({ user, params }) => {
+  await deleteSite(user, params.id);
   return { deleted: true };
 });

@@ -3,6 +3,7 @@ import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { getUpload } from "@/lib/data/uploads";
 import { readStored } from "@/lib/storage";
+import { idParams } from "@/lib/validations/params";
 
 const INLINE_TYPES = new Set(["image/png", "image/jpeg"]);
 
@@ -13,8 +14,8 @@ function contentDisposition(kind: "inline" | "attachment", name: string): string
 }
 
 /** Downloads a stored file with its recorded type; images may show inline, everything else downloads. */
-export const GET = handler({ roles: can.read }, async ({ params, req }) => {
-  const upload = await getUpload(params.id ?? "");
+export const GET = handler({ roles: can.read, params: idParams }, async ({ params, req }) => {
+  const upload = await getUpload(params.id);
   if (!upload) throw new ApiError(404, "file not found");
   let bytes: Buffer;
   try {

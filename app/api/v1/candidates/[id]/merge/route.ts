@@ -2,8 +2,9 @@ import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { mergeCandidates } from "@/lib/triggers/regroup";
 import { mergeBodySchema } from "@/lib/validations/candidates";
+import { idParams } from "@/lib/validations/params";
 
 /** Coordinators: merges the body's candidate into this one (all its triggers move here). Undone by a split. */
-export const POST = handler({ roles: can.regroupTriggers, body: mergeBodySchema }, async ({ user, body, params }) =>
-  mergeCandidates({ actor: user, fromCandidateId: body.candidateId, intoCandidateId: params.id ?? "" }),
+export const POST = handler({ roles: can.regroupTriggers, params: idParams, body: mergeBodySchema }, async ({ user, body, params }) =>
+  mergeCandidates({ actor: user, fromCandidateId: body.candidateId, intoCandidateId: params.id }),
 );

@@ -3,12 +3,13 @@ import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { createTasks, listTasks } from "@/lib/data/tasks";
 import { createTasksBodySchema } from "@/lib/validations/tasks";
+import { idParams } from "@/lib/validations/params";
 
 /** The candidate's follow-up tasks. */
-export const GET = handler({ roles: can.read }, async ({ user, params }) => listTasks({ candidateId: params.id ?? "" }, user));
+export const GET = handler({ roles: can.read, params: idParams }, async ({ user, params }) => listTasks({ candidateId: params.id }, user));
 
 /** Plans follow-up: creates one or several tasks for a candidate in Pursue. */
-export const POST = handler({ roles: can.planFollowUp, body: createTasksBodySchema }, async ({ user, body, params }) => {
-  const tasks = await createTasks(user, params.id ?? "", body.tasks);
+export const POST = handler({ roles: can.planFollowUp, params: idParams, body: createTasksBodySchema }, async ({ user, body, params }) => {
+  const tasks = await createTasks(user, params.id, body.tasks);
   return NextResponse.json({ tasks }, { status: 201 });
 });

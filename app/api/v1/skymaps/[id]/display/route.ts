@@ -1,10 +1,11 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { getSkymap, readDisplayGridBytes } from "@/lib/data/skymaps";
+import { idParams } from "@/lib/validations/params";
 
 /** The stored nside-64 display grid (HPXG bytes, lib/skymap/display-grid.ts), for drawing in the browser. */
-export const GET = handler({ roles: can.read }, async ({ params }) => {
-  const skymap = await getSkymap(params.id ?? "");
+export const GET = handler({ roles: can.read, params: idParams }, async ({ params }) => {
+  const skymap = await getSkymap(params.id);
   const bytes = await readDisplayGridBytes(skymap.file.sha256);
   return new Response(Buffer.from(bytes), {
     headers: {

@@ -1,8 +1,9 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { claimTask } from "@/lib/data/tasks";
+import { idParams } from "@/lib/validations/params";
 
 /** Claims an open task; when someone was quicker: 409 `{ error, claimedBy: { id, name } }`. */
-export const POST = handler({ roles: can.claimTask }, async ({ user, params }) => ({
-  task: await claimTask(user, params.id ?? ""),
+export const POST = handler({ roles: can.claimTask, params: idParams }, async ({ user, params }) => ({
+  task: await claimTask(user, params.id),
 }));

@@ -1,0 +1,49 @@
+import { ApiError, invalid, zodIssues, type FieldIssue } from "@/lib/api/errors";
+import { recordDeadLetter } from "@/lib/data/dead-letters";
+import { ingestCandidate } from "@/lib/data/ingest";
+import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
+
+export const maxFeedBodyBytes = 5 * 1024 * 1024;
+
+export interface FeedAnswer {
+  status: number;
+  /** `{ id, triggerId, preferred, revision, derived, outcome }` as JSON text */
+  json: string;
+}
+
+/**
+ * A correctly signed feed post: JSON (400) → schema (422) → track length (422) → one transaction. Every refusal
+ * is kept raw as a dead letter, and the refusal carries the dead letter's id. The body is not parsed by the route
+ * wrapper because what it refuses must be kept as sent.
+ */
+export async function receiveFeedPost(rawBody: string, receivedAt: Date): Promise<FeedAnswer> {
+  const refuse = async (status: number, reason: string, issues?: FieldIssue[]) => {
+    const deadLetterId = await recordDeadLetter({ receivedAt, statusCode: status, reason, issues, rawBody });
+    return new ApiError(status, reason, { ...(issues ? { issues } : {}), deadLetterId });
+  };
+  let json: unknown;
+  try {
+    json = JSON.parse(rawBody);
+  } catch (error) {
+    throw await refuse(400, `body is not valid JSON: ${(error as Error).message}`);
+  }
+  const parsed = feedCandidateSchema.safeParse(json);
+  if (!parsed.success) {
+    const refusal = invalid(parsed.error, "feed body");
+    throw await refuse(422, refusal.message, zodIssues(parsed.error));
+  }
+  const samples = parsed.data.frequencyTrack.t.length;
+  if (samples > maxTrackSamples) {
+    const issue = { path: "frequencyTrack.t", message: `has ${samples} samples; at most ${maxTrackSamples}` };
+    throw await refuse(422, `invalid feed body: ${issue.path}: ${issue.message}`, [issue]);
+  }
+  // Validation only trims the two names; when it changed nothing the raw body is the payload's JSON already.
+  const raw = json as { source?: unknown; externalId?: unknown };
+  const unchanged = raw.source === parsed.data.source && raw.externalId === parsed.data.externalId;
+  const result = await ingestCandidate(parsed.data, receivedAt, unchanged ? { payloadJson: rawBody } : {});
+  // The derived quantities are already JSON text (as stored); splice them in rather than parse and re-serialise.
+  const body =
+    `{"id":${JSON.stringify(result.id)},"triggerId":${JSON.stringify(result.triggerId)},"preferred":${result.preferred},` +
+    `"revision":${result.revision},"derived":${result.derivedJson},"outcome":"${result.outcome}"}`;
+  return { status: result.status, json: body };
+}
