@@ -20,7 +20,7 @@ export const navItems: NavItem[] = [
   { href: "/notifications", label: "Call-outs", icon: "notifications", roles: everyone },
   { href: "/settings", label: "Settings", icon: "settings", roles: everyone },
   { href: "/admin/users", label: "People & roles", icon: "users", roles: can.manageUsers },
-  { href: "/dead-letters", label: "Rejected feed posts", icon: "dead-letters", roles: can.readDeadLetters },
+  { href: "/dead-letters", label: "Rejected feed posts", icon: "dead-letters", roles: can.readDeliveryFailures },
 ];
 
 export const devNavItems: NavItem[] = [{ href: "/dev/mailbox", label: "Dev mailbox", icon: "mailbox", roles: everyone }];

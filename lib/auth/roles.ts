@@ -26,7 +26,10 @@ export const can = {
   manageUsers: ["coordinator", "admin"],
   manageSites: ["coordinator", "admin"],
   manageSettings: ["coordinator", "admin"],
-  readDeadLetters: ["coordinator", "admin"],
+  /** see refused feed posts and failed pages */
+  readDeliveryFailures: ["coordinator", "admin"],
+  /** send a failed page again (a write, so named apart from reading the failures) */
+  retryPages: ["coordinator", "admin"],
   uploadSkymap: ["shifter", "coordinator"],
   /** split a trigger out of its candidate, merge two candidates */
   regroupTriggers: ["coordinator"],

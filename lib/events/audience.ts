@@ -14,7 +14,7 @@ export function mayReceive(user: Pick<SessionUser, "id" | "role">, event: Pick<A
       return hasRole(user, can.manageSettings);
     case eventKinds.notificationFailed:
     case eventKinds.pageFailing:
-      return hasRole(user, can.readDeadLetters) || event.data?.userId === user.id;
+      return hasRole(user, can.readDeliveryFailures) || event.data?.userId === user.id;
     default:
       return true;
   }

@@ -12,7 +12,7 @@ export const metadata = { title: "Rejected feed posts" };
 const pageSize = 50;
 
 export default async function DeadLettersPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
-  await requirePageUser(can.readDeadLetters);
+  await requirePageUser(can.readDeliveryFailures);
   const { before } = await searchParams;
   const beforeDate = before && !Number.isNaN(Date.parse(before)) ? new Date(before) : undefined;
   const letters = await listDeadLetters({ limit: pageSize, before: beforeDate });

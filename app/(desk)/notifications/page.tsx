@@ -22,7 +22,7 @@ export default async function NotificationsPage() {
           </Link>
         }
       />
-      {hasRole(user, can.readDeadLetters) ? (
+      {hasRole(user, can.readDeliveryFailures) ? (
         <Panel>
           <PanelTitle>Failed deliveries (everyone)</PanelTitle>
           <FailedDeliveries timeZone={user.timeZone} />

@@ -12,7 +12,7 @@ const querySchema = z.object({
 });
 
 /** Refused feed posts, newest first (reason, field issues, raw body preview), or one whole letter by id. */
-export const GET = handler({ roles: can.readDeadLetters, query: querySchema }, async ({ query }) => {
+export const GET = handler({ roles: can.readDeliveryFailures, query: querySchema }, async ({ query }) => {
   if (query.id) {
     const letter = await getDeadLetter(query.id);
     if (!letter) throw notFound("dead letter");
