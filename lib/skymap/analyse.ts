@@ -1,9 +1,10 @@
 import { credibleAreas } from "./credible";
+import { mapDistance, pixelDistance } from "./distance";
 import { SkymapError } from "./errors";
 import type { ReadFitsOptions } from "./fits";
 import { nestCentreVec, pix2vec_nest, pix2vec_ring, pixelAreaSr, SR_TO_DEG2, vecToRaDec } from "./healpix";
 import { loadSkymap } from "./load";
-import type { SkymapMap, SkymapSummary, SkyPosition } from "./types";
+import type { DistanceSummary, SkymapMap, SkymapSummary, SkyPosition } from "./types";
 
 export type AnalyseResult =
   | { ok: true; summary: SkymapSummary; map: SkymapMap }
@@ -29,6 +30,8 @@ export function analyseSkymap(bytes: Uint8Array, options: ReadFitsOptions = {}):
       ...(map.layout === "multiorder" ? { maxOrder: map.maxOrder } : { nside: map.nside }),
       pixelCount: map.probability.length,
     };
+    const distance = distanceSummary(map);
+    if (distance) summary.distance = distance;
     return { ok: true, summary, map };
   } catch (error) {
     if (error instanceof SkymapError) return { ok: false, error };
@@ -52,11 +55,25 @@ export function credibleAreaDeg2(map: SkymapMap, level: number): number {
   return credibleAreasDeg2(map, [level])[0] ?? 0;
 }
 
-/** Centre of the highest-density pixel (the first one on ties). */
-export function peakPosition(map: SkymapMap): SkyPosition {
+/** Whole-map and most-probable-pixel distances of a 3D map; undefined without distance columns. */
+export function distanceSummary(map: SkymapMap): DistanceSummary | undefined {
+  if (!map.distance) return undefined;
+  const whole = mapDistance(map.probability, map.distance);
+  if (!whole) return undefined;
+  return { meanMpc: whole.meanMpc, stdMpc: whole.stdMpc, atPeak: pixelDistance(map.distance, peakIndex(map)), coveredProbability: whole.coveredProbability };
+}
+
+/** Index of the highest-density pixel (the first one on ties). */
+export function peakIndex(map: SkymapMap): number {
   const ranked = map.layout === "multiorder" ? map.densityPerSr : map.probability;
   let best = 0;
   for (let i = 1; i < ranked.length; i++) if ((ranked[i] ?? 0) > (ranked[best] ?? 0)) best = i;
+  return best;
+}
+
+/** Centre of the highest-density pixel (the first one on ties). */
+export function peakPosition(map: SkymapMap): SkyPosition {
+  const best = peakIndex(map);
   if (map.layout === "multiorder") return vecToRaDec(nestCentreVec(map.order[best] ?? 0, map.ipix[best] ?? 0));
   const vec = map.layout === "flat-ring" ? pix2vec_ring(map.nside, best) : pix2vec_nest(map.nside, best);
   return vecToRaDec(vec);

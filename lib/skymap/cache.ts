@@ -36,7 +36,8 @@ export class SkymapCache {
 }
 
 function mapBytes(map: SkymapMap): number {
-  if (map.layout !== "multiorder") return map.probability.byteLength;
+  const distanceBytes = map.distance ? 3 * map.probability.byteLength : 0;
+  if (map.layout !== "multiorder") return map.probability.byteLength + distanceBytes;
   // order, ipix, probability, density, and the pixel centres built by the first cone query
-  return map.order.length * (1 + 8 * 3 + 24);
+  return map.order.length * (1 + 8 * 3 + 24) + distanceBytes;
 }

@@ -1,7 +1,17 @@
 /** Public surface of the sky-map library: pure functions over bytes and typed arrays. */
-export { analyseSkymap, credibleAreaDeg2, credibleAreasDeg2, peakPosition, type AnalyseResult } from "./analyse";
+export { analyseSkymap, credibleAreaDeg2, credibleAreasDeg2, distanceSummary, peakPosition, type AnalyseResult } from "./analyse";
 export { SkymapCache } from "./cache";
 export { coneProbability } from "./cone";
+export {
+  ansatzMoments,
+  ansatzNorm,
+  hasAnsatz,
+  mapDistance,
+  normalDensityPerMpc,
+  pixelDistance,
+  type DistanceLayers,
+  type DistanceMoments,
+} from "./distance";
 export {
   decodeDisplayGrid,
   degradeDisplayGrid,
@@ -14,5 +24,6 @@ export {
 export { SkymapError, type SkymapErrorCode } from "./errors";
 export { DEFAULT_MAX_FITS_BYTES } from "./fits";
 export { loadSkymap, type LoadedSkymap } from "./load";
+export { pixelLocator, type PixelLocator } from "./pixel-at";
 export { credibleRegionPoints, type RegionPointsOptions } from "./region";
 export type * from "./types";

@@ -2,6 +2,7 @@ import { SkymapError } from "./errors";
 import { type FitsHeader, headerString, readFits, type ReadFitsOptions } from "./fits";
 import { type BinTable, binTables, findColumn, readNumericColumn } from "./fits-table";
 import { nside2npix, nsideToOrder } from "./healpix";
+import { readDistanceColumns } from "./distance-columns";
 import { buildMultiOrder } from "./multiorder";
 import type { FlatSkymap, SkymapMap } from "./types";
 import { checkProbabilities, normalise } from "./validate";
@@ -55,6 +56,8 @@ export function loadSkymap(bytes: Uint8Array, options: ReadFitsOptions = {}): Lo
     checkProbabilities(values, probColumn.name);
     const uniq = readNumericColumn(file, table, uniqColumn);
     const built = buildMultiOrder(uniq, values, densityColumn ? "density" : "probability", warnings);
+    const distance = readDistanceColumns(file, table, uniq.length, warnings);
+    if (distance) built.map.distance = distance;
     return { ...built, warnings };
   }
 
@@ -74,6 +77,8 @@ export function loadSkymap(bytes: Uint8Array, options: ReadFitsOptions = {}): Lo
     order: nsideToOrder(nside) ?? 0,
     probability,
   };
+  const distance = readDistanceColumns(file, table, probability.length, warnings);
+  if (distance) map.distance = distance;
   return { map, totalProbability: total, normalised, warnings };
 }
 

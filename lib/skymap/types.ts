@@ -1,3 +1,5 @@
+import type { DistanceLayers } from "./distance";
+
 export type SkymapLayout = "flat-ring" | "flat-nested" | "multiorder";
 
 /** A full-sky map with one probability per pixel, kept in the file's own ordering. */
@@ -7,6 +9,8 @@ export interface FlatSkymap {
   order: number;
   /** Probability per pixel, normalised to a total of 1. */
   probability: Float64Array;
+  /** DISTMU, DISTSIGMA, DISTNORM when the file has them (3D maps), in the same pixel order. */
+  distance?: DistanceLayers;
 }
 
 /** A multi-order (NUNIQ) map; arrays are parallel, one entry per pixel in file order. */
@@ -20,6 +24,8 @@ export interface MultiOrderSkymap {
   probability: Float64Array;
   /** Probability per steradian, with the same normalisation. */
   densityPerSr: Float64Array;
+  /** DISTMU, DISTSIGMA, DISTNORM when the file has them (3D maps), parallel to the other arrays. */
+  distance?: DistanceLayers;
 }
 
 export type SkymapMap = FlatSkymap | MultiOrderSkymap;
@@ -45,6 +51,17 @@ export interface SkymapSummary {
   /** Multi-order maps only. */
   maxOrder?: number;
   pixelCount: number;
+  /** Distance summary of 3D maps (Singer et al. 2016 ansatz); absent for maps without distance columns. */
+  distance?: DistanceSummary;
+}
+
+export interface DistanceSummary {
+  /** Over the whole map (the marginal distance distribution). */
+  meanMpc: number;
+  stdMpc: number;
+  /** In the most probable pixel; null when that pixel carries no distance. */
+  atPeak: { meanMpc: number; stdMpc: number } | null;
+  coveredProbability: number;
 }
 
 /** A probability sample of the credible region, for visibility calculations. */
