@@ -30,3 +30,9 @@ export function formatBytes(bytes: number): string {
   if (bytes >= 1024) return `${Math.round(bytes / 1024)} kB`;
   return `${bytes} B`;
 }
+
+/** A distance with its spread; whole Mpc above 100 Mpc, three significant figures below. */
+export function formatDistance(meanMpc: number, stdMpc: number): string {
+  const fmt = (v: number) => (Math.abs(v) >= 100 ? Math.round(v).toLocaleString("en-US") : v.toPrecision(3));
+  return `${fmt(meanMpc)} ± ${fmt(stdMpc)} Mpc`;
+}

@@ -10,6 +10,7 @@ import type { SkymapInfo } from "@/lib/data/skymaps";
 import { formatInZone, isoUtc } from "@/lib/format/time";
 import { credibleRegionPoints } from "@/lib/skymap/region";
 import { ConeQuery } from "./cone-query";
+import { DistanceFigures } from "./distance-figures";
 import { formatArea, formatBytes, formatDec, formatRa, formatShare } from "./format";
 import { SkymapLegend } from "./legend";
 import { zoomOn, type SkyView } from "./projection";
@@ -126,6 +127,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
         <Figure label="Most probable RA" value={formatRa(skymap.peak.raDeg)} hint={`${skymap.peak.raDeg.toFixed(3)}°`} />
         <Figure label="Most probable Dec" value={formatDec(skymap.peak.decDeg)} hint={`${skymap.peak.decDeg.toFixed(3)}°`} />
       </dl>
+      <DistanceFigures distance={skymap.distance} />
       <Caution />
       {skymap.warnings.length ? (
         <ul className="space-y-1 rounded-md border border-warn/40 bg-warn/10 px-3 py-2 text-sm" aria-label="Warnings about this sky map">

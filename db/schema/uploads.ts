@@ -21,6 +21,14 @@ export const uploads = sqliteTable(
 );
 export type Upload = typeof uploads.$inferSelect;
 
+/** Distances in Mpc: whole map (marginal), most probable pixel, and the probability carrying a distance. */
+export interface SkymapDistance {
+  meanMpc: number;
+  stdMpc: number;
+  atPeak: { meanMpc: number; stdMpc: number } | null;
+  coveredProbability: number;
+}
+
 export const skymaps = sqliteTable(
   "skymaps",
   {
@@ -41,6 +49,8 @@ export const skymaps = sqliteTable(
     peakRaDeg: real("peak_ra_deg").notNull(),
     peakDecDeg: real("peak_dec_deg").notNull(),
     warnings: text("warnings", { mode: "json" }).$type<string[]>().notNull(),
+    /** Distance summary of a 3D map (DISTMU/DISTSIGMA/DISTNORM); null for maps without distance columns. */
+    distance: text("distance", { mode: "json" }).$type<SkymapDistance>(),
     createdAt: createdAt(),
   },
   (t) => [index("skymaps_candidate_idx").on(t.candidateId, t.createdAt)],

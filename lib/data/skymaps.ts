@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { and, desc, eq, type SQL } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidateRevisions, candidates, skymaps, triggers, uploads, users, type Skymap } from "@/db/schema";
+import { candidateRevisions, candidates, skymaps, triggers, uploads, users, type Skymap, type SkymapDistance } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { eventKinds } from "@/lib/events/kinds";
 import {
@@ -107,6 +107,7 @@ export async function uploadSkymap(input: SkymapUploadInput): Promise<SkymapUplo
           peakRaDeg: summary.peak.raDeg,
           peakDecDeg: summary.peak.decDeg,
           warnings: summary.warnings,
+          distance: summary.distance ?? null,
           createdAt: now,
         })
         .returning();
@@ -174,6 +175,8 @@ export interface SkymapInfo {
   area90Deg2: number;
   peak: { raDeg: number; decDeg: number };
   warnings: string[];
+  /** Rapid distance estimate of a 3D map (Singer et al. 2016 ansatz); null without distance columns. */
+  distance: SkymapDistance | null;
   createdAt: string;
   file: { uploadId: string; name: string; sha256: string; sizeBytes: number; url: string };
   uploadedBy: { id: string; name: string } | null;
@@ -218,6 +221,7 @@ function toInfo({ skymap, revision, upload, uploader }: SkymapRow): SkymapInfo {
     area90Deg2: skymap.area90Deg2,
     peak: { raDeg: skymap.peakRaDeg, decDeg: skymap.peakDecDeg },
     warnings: skymap.warnings,
+    distance: skymap.distance ?? null,
     createdAt: skymap.createdAt.toISOString(),
     file: { uploadId: upload.id, name: upload.name, sha256: upload.sha256, sizeBytes: upload.sizeBytes, url: uploadUrl(upload.id) },
     uploadedBy: uploader?.id ? uploader : null,

@@ -137,12 +137,14 @@ async function markPastPagesDelivered(db: Database): Promise<void> {
 }
 
 /**
- * A fictional two-lobed localisation (made by tests/fixtures/scripts/skymap_make_fixtures.py), attached through the
- * real upload path to the newest pursued candidates and the newest new one, so the map and visibility views show.
+ * A fictional two-lobed localisation with distance columns (made by tests/fixtures/scripts/galaxies_make_fixtures.py
+ * from the same invented sky model as skymap_make_fixtures.py, plus DISTMU/DISTSIGMA/DISTNORM), attached through the
+ * real upload path to the newest pursued candidates and the newest new one, so the map, distance and visibility
+ * views show.
  */
 async function attachDemoSkymaps(db: Database, candidateIds: string[]): Promise<void> {
   if (candidateIds.length === 0) return;
-  const bytes = new Uint8Array(await readFile(path.join(process.cwd(), "scripts/demo/demo-localisation.multiorder.fits.gz")));
+  const bytes = new Uint8Array(await readFile(path.join(process.cwd(), "scripts/demo/demo-localisation-3d.multiorder.fits.gz")));
   const rows = await db
     .select({ id: candidates.id, triageState: candidates.triageState })
     .from(candidates)
@@ -150,7 +152,7 @@ async function attachDemoSkymaps(db: Database, candidateIds: string[]): Promise<
     .orderBy(desc(candidates.receivedAt));
   const picked = [...rows.filter((r) => r.triageState === "pursue").slice(0, 2), ...rows.filter((r) => r.triageState === "new").slice(0, 1)];
   for (const row of picked) {
-    await uploadSkymap({ target: { candidateId: row.id }, fileName: "demo-localisation.multiorder.fits.gz", bytes, actorId: null, via: "feed" });
+    await uploadSkymap({ target: { candidateId: row.id }, fileName: "demo-localisation-3d.multiorder.fits.gz", bytes, actorId: null, via: "feed" });
   }
 }
 

@@ -1,0 +1,1 @@
+ALTER TABLE `skymaps` ADD `distance` text;
