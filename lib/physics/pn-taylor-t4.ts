@@ -7,7 +7,7 @@
  *
  * The "coalescence time" of this model is the moment x reaches 1/6 (the test-mass ISCO), where PN inspirals are
  * conventionally stopped (common practice). τ = t_c − t in units of M is tabulated once per binary as
- * y = ln x on a uniform grid in ln τ (RK4, Hermite interpolation), so a fit evaluates f(t) with one log and one exp.
+ * y = ln x on a uniform grid in ln τ (RK4), stored as cubics in x^(3/2) (Hermite), so a fit evaluates f(t) with one log.
  */
 const EULER_GAMMA = 0.5772156649015329;
 export const ISCO_X = 1 / 6;
@@ -70,71 +70,88 @@ const STEPS_PER_UNIT = 48;
 
 export interface PnTable {
   eta: number;
-  /** y = ln x at node k (ln u = LN_U_MIN + k h) and dy/d ln u there */
-  y: Float64Array;
-  dy: Float64Array;
+  /**
+   * z = x^(3/2) = π M f as a cubic in s ∈ [0, 1) on each interval k (ln u = LN_U_MIN + (k + s) h): four
+   * coefficients per interval, c0 + s (c1 + s (c2 + s c3)), from the Hermite form of the RK4 nodes (values and
+   * slopes), so a lookup is one log and two Horner sums, with no exp and no allocation.
+   */
+  cubic: Float64Array;
+  intervals: number;
   h: number;
   /** dx/du at the ISCO, for the last few 10⁻⁶ M */
   iscoSlope: number;
 }
 
-/** Tabulates ln x(ln u); null when B(x) ≤ 0 somewhere below the ISCO (the series has broken down). */
+/** Tabulates z(ln u); null when B(x) ≤ 0 somewhere below the ISCO (the series has broken down). */
 export function buildPnTable(binary: PnBinary): PnTable | null {
   const c = bracketCoefficients(binary);
   const k = (64 / 5) * binary.eta;
-  // dy/d ln u = −(64η/5) u x⁴ B(x), with x = e^y.
-  const rate = (lnU: number, y: number): number => {
-    const x = Math.exp(y);
-    const b = taylorT4Bracket(x, c);
-    return b > 0 ? -k * Math.exp(lnU + 4 * y) * b : Number.NaN;
-  };
   const count = (LN_U_MAX - LN_U_MIN) * STEPS_PER_UNIT + 1;
   const h = 1 / STEPS_PER_UNIT;
-  const y = new Float64Array(count);
-  const dy = new Float64Array(count);
+  // dy/d ln u = −(64η/5) u x⁴ B(x), with x = e^y; u comes from the node's u times e^(h/2) or e^h (no exp of ln u).
+  const rate = (u: number, y: number): number => {
+    const x = Math.exp(y);
+    const b = taylorT4Bracket(x, c);
+    const x2 = x * x;
+    return b > 0 ? -k * u * x2 * x2 * b : Number.NaN;
+  };
+  const halfStep = Math.exp(h / 2);
   const iscoB = taylorT4Bracket(ISCO_X, c);
   if (!(iscoB > 0)) return null;
   const iscoSlope = -k * ISCO_X ** 5 * iscoB;
-  y[0] = Math.log(ISCO_X + iscoSlope * Math.exp(LN_U_MIN));
-  for (let i = 0; i < count; i++) {
-    const lnU = LN_U_MIN + i * h;
-    const yi = y[i] as number;
-    const k1 = rate(lnU, yi);
-    dy[i] = k1;
+  const cubic = new Float64Array(4 * (count - 1));
+  let u = Math.exp(LN_U_MIN);
+  let y = Math.log(ISCO_X + iscoSlope * u);
+  let k1 = rate(u, y);
+  let z0 = Math.exp(1.5 * y);
+  let m0 = 1.5 * z0 * k1 * h;
+  for (let i = 0; i < count - 1; i++) {
     if (!Number.isFinite(k1)) return null;
-    if (i === count - 1) break;
-    const k2 = rate(lnU + h / 2, yi + (h / 2) * k1);
-    const k3 = rate(lnU + h / 2, yi + (h / 2) * k2);
-    const k4 = rate(lnU + h, yi + h * k3);
-    y[i + 1] = yi + (h / 6) * (k1 + 2 * k2 + 2 * k3 + k4);
+    const uMid = u * halfStep;
+    const uNext = uMid * halfStep;
+    const k2 = rate(uMid, y + (h / 2) * k1);
+    const k3 = rate(uMid, y + (h / 2) * k2);
+    const k4 = rate(uNext, y + h * k3);
+    y += (h / 6) * (k1 + 2 * k2 + 2 * k3 + k4);
+    u = uNext;
+    k1 = rate(u, y);
+    const z1 = Math.exp(1.5 * y);
+    const m1 = 1.5 * z1 * k1 * h;
+    const o = 4 * i;
+    cubic[o] = z0;
+    cubic[o + 1] = m0;
+    cubic[o + 2] = -3 * z0 - 2 * m0 + 3 * z1 - m1;
+    cubic[o + 3] = 2 * z0 + m0 - 2 * z1 + m1;
+    z0 = z1;
+    m0 = m1;
   }
-  return { eta: binary.eta, y, dy, h, iscoSlope };
+  if (!Number.isFinite(k1)) return null;
+  return { eta: binary.eta, cubic, intervals: count - 1, h, iscoSlope };
 }
 
 /**
- * ln x and d ln x / d ln u at u = τ/M > 0, written into out[0], out[1]; false when u lies beyond the table.
- * Cubic Hermite between nodes (values and slopes from the RK4 pass).
+ * z = x^(3/2) and dz/d ln u at u = τ/M > 0, written into out[0], out[1]; false when u lies beyond the table.
+ * (d ln x / d ln u = (2/3) out[1] / out[0].)
  */
-export function lookupLnX(table: PnTable, u: number, out: Float64Array): boolean {
-  const lnU = Math.log(u);
-  const position = (lnU - LN_U_MIN) / table.h;
+export function lookupZ(table: PnTable, u: number, out: Float64Array): boolean {
+  const position = (Math.log(u) - LN_U_MIN) / table.h;
   if (position < 0) {
     const x = ISCO_X + table.iscoSlope * u;
-    out[0] = Math.log(x);
-    out[1] = (table.iscoSlope * u) / x;
-    return x > 0;
+    if (!(x > 0)) return false;
+    const z = x * Math.sqrt(x);
+    out[0] = z;
+    out[1] = (1.5 * z * table.iscoSlope * u) / x;
+    return true;
   }
   const i = Math.floor(position);
-  if (i >= table.y.length - 1) return false;
+  if (i >= table.intervals) return false;
   const s = position - i;
-  const h = table.h;
-  const y0 = table.y[i] as number;
-  const y1 = table.y[i + 1] as number;
-  const m0 = (table.dy[i] as number) * h;
-  const m1 = (table.dy[i + 1] as number) * h;
-  const s2 = s * s;
-  const s3 = s2 * s;
-  out[0] = (2 * s3 - 3 * s2 + 1) * y0 + (s3 - 2 * s2 + s) * m0 + (-2 * s3 + 3 * s2) * y1 + (s3 - s2) * m1;
-  out[1] = ((6 * s2 - 6 * s) * y0 + (3 * s2 - 4 * s + 1) * m0 + (-6 * s2 + 6 * s) * y1 + (3 * s2 - 2 * s) * m1) / h;
+  const c = table.cubic;
+  const o = 4 * i;
+  const c1 = c[o + 1] as number;
+  const c2 = c[o + 2] as number;
+  const c3 = c[o + 3] as number;
+  out[0] = (c[o] as number) + s * (c1 + s * (c2 + s * c3));
+  out[1] = (c1 + s * (2 * c2 + 3 * s * c3)) / table.h;
   return true;
 }

@@ -13,13 +13,15 @@ describe("Foucart, Hinderer & Nissanke 2018 Eq. 4 remnant mass", () => {
     expect(remnantMassFraction(6, 1.2, 0.9, 13)).toBeCloseTo(0.3041, 3);
   });
 
-  it("raises the bracket to δ = 1.761, as an independent implementation of Eq. 4 does", () => {
+  it("raises the bracket to δ = 1.761 (FHN 2018 Eq. 4 as recalled), not 1 + δ, matching an independent example", () => {
     // A published implementation's documented example (5 M☉ non-spinning hole, 1.0 M☉ star of 15 km) gives a
     // remnant of 0.12265712 M☉ with baryon mass m_b = M (1 + 0.619 C + 0.1359 C²) (binding-energy fit it uses);
     // with an exponent of 1 + δ it would be about 0.036 M☉. Fraction = remnant / m_b.
     const c = neutronStarCompactness(1.0, 15);
     const baryonMassSolar = 1 + 0.619 * c + 0.1359 * c * c;
     expect(remnantMassFraction(5, 1.0, 0, 15)).toBeCloseTo(0.12265712 / baryonMassSolar, 3);
+    // The 1 + δ reading of the issue would give about 0.3 of that: refuse it explicitly.
+    expect(remnantMassFraction(5, 1.0, 0, 15)).toBeGreaterThan(2 * (0.036 / baryonMassSolar));
   });
 
   it("leaves nothing for a heavy non-spinning hole and more for spin, larger stars and lighter holes", () => {
