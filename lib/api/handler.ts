@@ -5,9 +5,11 @@ import { loggableError } from "@/db/loggable-error";
 import { isDatabaseBusy } from "@/db";
 import { hasRole, type SessionUser } from "@/lib/auth/roles";
 import { resolveRequestUser } from "@/lib/auth/session";
-import { feedSigningSecret, verifyFeedSignature } from "@/lib/feed/signature";
+import { feedSigningSecret } from "@/lib/feed/signature";
 import { readBodyBytes } from "./body";
 import { ApiError, unauthorized } from "./errors";
+import { checkJsonContentType, checkSameOrigin } from "./same-origin";
+import { readSignedBody } from "./signed-body";
 import type { Guard } from "./guards";
 import { DEFAULT_MAX_BODY_BYTES, parseJsonBody, parseParams, parseQuery, type RouteContext } from "./request-input";
 
@@ -76,7 +78,8 @@ export function handler<G extends Guard, P extends Schema = undefined, Q extends
         let body: unknown;
         if (options.body) {
           const bytes = "raw" in guarded && guarded.raw ? guarded.raw : await readBodyBytes(req, limit);
-          body = parseJsonBody(options.body, Buffer.from(bytes).toString("utf8"));
+          if (byCookie(options, req)) checkJsonContentType(req, bytes);
+          body = parseJsonBody(options.body, bytes);
         }
         const ctx = { ...guarded, req, params, query, body, now: new Date(nowMs), requestId };
         const result = await fn(ctx as HandlerContext<G, Infer<P>, Infer<Q>, Infer<B>>);
@@ -92,6 +95,7 @@ export function handler<G extends Guard, P extends Schema = undefined, Q extends
 
 async function authenticate(guard: Guard, req: NextRequest, deps: RouteDeps, nowMs: number, limit: number) {
   if (guard.roles) {
+    if (byCookie(guard, req)) checkSameOrigin(req);
     const user = await resolveRequestUser(req.headers);
     if (!user) throw unauthorized();
     if (!hasRole(user, guard.roles)) {
@@ -100,13 +104,15 @@ async function authenticate(guard: Guard, req: NextRequest, deps: RouteDeps, now
     return { user };
   }
   if (guard.feedSignature) {
-    // The whole body is read first (within the limit) so nothing unsigned is ever parsed.
-    const raw = await readBodyBytes(req, limit);
-    const signature = verifyFeedSignature(deps.feedSecret(), req.headers, raw, nowMs);
-    if (!signature.ok) throw new ApiError(401, `feed signature refused: ${signature.reason}`);
-    return { raw };
+    // Headers and declared length first, then the body through the MAC; nothing unsigned is ever parsed.
+    return { raw: await readSignedBody(req, deps.feedSecret(), nowMs, limit) };
   }
   return {};
+}
+
+/** A person's request that a browser may have attached the session cookie to (no bearer token). */
+function byCookie(guard: Guard, req: NextRequest): boolean {
+  return Boolean(guard.roles) && !req.headers.has("authorization");
 }
 
 /** One error shape for every route: `{ error, requestId, ...details }`. Unexpected errors are logged, never silent. */

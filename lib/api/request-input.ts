@@ -1,7 +1,7 @@
 import type { NextRequest } from "next/server";
 import type { ZodType } from "zod";
-import { readBodyBytes } from "./body";
 import { ApiError, invalid } from "./errors";
+import { parseStrictJson } from "./strict-json";
 
 /** The request body limit unless a route says otherwise. */
 export const DEFAULT_MAX_BODY_BYTES = 1_000_000;
@@ -25,22 +25,19 @@ export function parseQuery(schema: ZodType | undefined, req: NextRequest): unkno
   return parsed.data;
 }
 
-/** Reads at most `limit` bytes of text; a larger body is a 413 without reading the rest. */
-export async function readBodyText(req: Request, limit = DEFAULT_MAX_BODY_BYTES): Promise<string> {
-  return Buffer.from(await readBodyBytes(req, limit)).toString("utf8");
-}
-
-export function parseJsonText(text: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch (error) {
-    throw new ApiError(400, `body is not valid JSON: ${(error as Error).message}`);
-  }
-}
-
 /** An empty body parses as `{}`, so a schema of optional fields accepts a bare POST. */
-export function parseJsonBody(schema: ZodType, text: string): unknown {
-  const parsed = schema.safeParse(text === "" ? {} : parseJsonText(text));
+export function parseJsonBody(schema: ZodType, bytes: Uint8Array): unknown {
+  const text = decodeUtf8(bytes);
+  const parsed = schema.safeParse(text === "" ? {} : parseStrictJson(text));
   if (!parsed.success) throw invalid(parsed.error);
   return parsed.data;
+}
+
+/** Request bodies are UTF-8 (RFC 8259 §8.1); a byte sequence that is not is refused rather than replaced with U+FFFD. */
+export function decodeUtf8(bytes: Uint8Array): string {
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    throw new ApiError(400, "body is not valid UTF-8 text", { reason: "not-utf-8" });
+  }
 }

@@ -1,4 +1,6 @@
 import { ApiError, invalid, zodIssues, type FieldIssue } from "@/lib/api/errors";
+import { decodeUtf8 } from "@/lib/api/request-input";
+import { parseStrictJson } from "@/lib/api/strict-json";
 import { recordDeadLetter } from "@/lib/data/dead-letters";
 import { ingestCandidate } from "@/lib/data/ingest";
 import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
@@ -16,16 +18,26 @@ export interface FeedAnswer {
  * is kept raw as a dead letter, and the refusal carries the dead letter's id. The body is not parsed by the route
  * wrapper because what it refuses must be kept as sent.
  */
-export async function receiveFeedPost(rawBody: string, receivedAt: Date): Promise<FeedAnswer> {
+export async function receiveFeedPost(rawBytes: Uint8Array, receivedAt: Date): Promise<FeedAnswer> {
+  let rawBody: string;
   const refuse = async (status: number, reason: string, issues?: FieldIssue[]) => {
     const deadLetterId = await recordDeadLetter({ receivedAt, statusCode: status, reason, issues, rawBody });
     return new ApiError(status, reason, { ...(issues ? { issues } : {}), deadLetterId });
   };
+  try {
+    rawBody = decodeUtf8(rawBytes);
+  } catch {
+    // The signature held over these exact bytes; keep them exactly (base64, said in the reason) for the sender.
+    rawBody = Buffer.from(rawBytes).toString("base64");
+    throw await refuse(400, "body is not valid UTF-8 text (kept base64-encoded)");
+  }
   let json: unknown;
   try {
-    json = JSON.parse(rawBody);
+    json = parseStrictJson(rawBody);
   } catch (error) {
-    throw await refuse(400, `body is not valid JSON: ${(error as Error).message}`);
+    if (!(error instanceof ApiError)) throw error;
+    const issues = error.details?.issues as FieldIssue[] | undefined;
+    throw await refuse(error.status, error.message, issues);
   }
   const parsed = feedCandidateSchema.safeParse(json);
   if (!parsed.success) {

@@ -25,13 +25,10 @@ export function signFeedBody(secret: string, rawBody: string | Uint8Array, nowMs
   };
 }
 
-/** Checks both headers against the raw body, comparing digests in constant time; `nowMs` is the receiver's clock. */
-export function verifyFeedSignature(
-  secret: string,
-  headers: Headers,
-  rawBody: string | Uint8Array,
-  nowMs: number,
-): SignatureCheck {
+export type HeaderCheck = { ok: true; timestamp: string; digest: Buffer } | { ok: false; reason: string };
+
+/** The two headers alone (present, well-formed, timestamp inside the window): checked before a body is read. */
+export function checkSignatureHeaders(headers: Headers, nowMs: number): HeaderCheck {
   const timestamp = headers.get(timestampHeader);
   const signature = headers.get(signatureHeader);
   if (!timestamp || !signature) return { ok: false, reason: "missing X-Feed-Timestamp or X-Feed-Signature" };
@@ -41,9 +38,20 @@ export function verifyFeedSignature(
   }
   const match = /^sha256=([0-9a-f]{64})$/i.exec(signature.trim());
   if (!match?.[1]) return { ok: false, reason: "X-Feed-Signature must be sha256=<64 hex digits>" };
-  const expected = Buffer.from(computeFeedSignature(secret, timestamp, rawBody), "hex");
-  const given = Buffer.from(match[1], "hex");
-  if (!timingSafeEqual(expected, given)) return { ok: false, reason: "signature does not match" };
+  return { ok: true, timestamp, digest: Buffer.from(match[1], "hex") };
+}
+
+/** Checks both headers against the raw body, comparing digests in constant time; `nowMs` is the receiver's clock. */
+export function verifyFeedSignature(
+  secret: string,
+  headers: Headers,
+  rawBody: string | Uint8Array,
+  nowMs: number,
+): SignatureCheck {
+  const checked = checkSignatureHeaders(headers, nowMs);
+  if (!checked.ok) return checked;
+  const expected = Buffer.from(computeFeedSignature(secret, checked.timestamp, rawBody), "hex");
+  if (!timingSafeEqual(expected, checked.digest)) return { ok: false, reason: "signature does not match" };
   return { ok: true };
 }
 

@@ -58,6 +58,24 @@ describe("the route guard", () => {
     expect(body.issues[0].path).toBe("reason");
   });
 
+  it("refuses a body naming a key twice (422 naming it), a lone surrogate (422) and bytes that are not UTF-8 (400)", async () => {
+    const twice = await post('{"reason":"abc","reason":"xyz"}', tokens.shifter);
+    expect(twice.status).toBe(422);
+    expect((await twice.json()).issues).toEqual([{ path: "reason", message: expect.stringMatching(/twice/) }]);
+    const lone = await post('{"reason":"ab\\ud800"}', tokens.shifter);
+    expect(lone.status).toBe(422);
+    expect((await lone.json()).issues[0].path).toBe("reason");
+    const latin1 = await route(
+      new NextRequest("http://localhost/api/v1/x", {
+        method: "POST",
+        body: new Uint8Array([0x7b, 0x22, 0x72, 0x65, 0x61, 0x73, 0x6f, 0x6e, 0x22, 0x3a, 0x22, 0xe9, 0xe9, 0xe9, 0x22, 0x7d]),
+        headers: { "content-type": "application/json", authorization: `Bearer ${tokens.shifter}` },
+      }),
+    );
+    expect(latin1.status).toBe(400);
+    expect((await latin1.json()).error).toMatch(/UTF-8/);
+  });
+
   it("refuses a revoked token", async () => {
     const user = await createTestUser("shifter");
     const { id, token } = await createApiToken(user.id, "short-lived");

@@ -82,13 +82,8 @@ describe("refused feed posts", () => {
     const raw = `{"pad":"${"x".repeat(5 * 1024 * 1024)}"}`;
     const res = await POST(feedRequest(raw));
     expect(res.status).toBe(413);
-    const declared = await POST(
-      new NextRequest("http://localhost/api/v1/feed/candidates", {
-        method: "POST",
-        body: "{}",
-        headers: { "content-length": String(6 * 1024 * 1024) },
-      }),
-    );
+    // Signature headers present (checked first), then the declared length: refused before the body is read.
+    const declared = await POST(feedRequest("{}", { headers: { "content-length": String(6 * 1024 * 1024) } }));
     expect(declared.status).toBe(413);
     expect(await rowCounts()).toEqual(before);
   });

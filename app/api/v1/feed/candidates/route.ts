@@ -9,6 +9,6 @@ const answerHeaders = { "content-type": "application/json", "cache-control": "no
 
 /** Signed by the feed (size 413 → signature 401, nothing kept → JSON, schema, track; refusals kept as dead letters). */
 export const POST = handler({ feedSignature: true, maxBodyBytes: maxFeedBodyBytes }, async ({ raw, now }) => {
-  const answer = await receiveFeedPost(Buffer.from(raw).toString("utf8"), now);
+  const answer = await receiveFeedPost(raw, now);
   return new Response(answer.json, { status: answer.status, headers: answerHeaders });
 });
