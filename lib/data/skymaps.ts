@@ -10,6 +10,8 @@ import {
   decodeDisplayGrid,
   encodeDisplayGrid,
   loadSkymap,
+  pixelDistance,
+  pixelLocator,
   SkymapCache,
   toDisplayGrid,
   type DisplayGrid,
@@ -247,6 +249,19 @@ export async function skymapConeProbability(id: string, raDeg: number, decDeg: n
   const info = await getSkymap(id);
   const map = mapCache.get(info.file.sha256, () => loadSkymap(readFileSync(storedPath(info.file.sha256)), { maxBytes: maxSkymapBytes }).map);
   return coneProbability(map, raDeg % 360, decDeg, radiusDeg);
+}
+
+/**
+ * Distance (mean and sd of the Singer et al. 2016 ansatz) in the map's pixel holding a position; null where that
+ * pixel carries no distance or a multi-order map has no pixel. 409 for a map without distance columns.
+ */
+export async function skymapDistanceAt(id: string, raDeg: number, decDeg: number): Promise<{ meanMpc: number; stdMpc: number } | null> {
+  const info = await getSkymap(id);
+  const map = mapCache.get(info.file.sha256, () => loadSkymap(readFileSync(storedPath(info.file.sha256)), { maxBytes: maxSkymapBytes }).map);
+  if (!map.distance) throw new ApiError(409, "this sky map has no distance columns (DISTMU, DISTSIGMA, DISTNORM)");
+  const index = pixelLocator(map)(raDeg, decDeg);
+  const moments = index < 0 ? null : pixelDistance(map.distance, index);
+  return moments ? { meanMpc: moments.meanMpc, stdMpc: moments.stdMpc } : null;
 }
 
 /** The stored display grid's bytes (HPXG); rebuilt from the FITS file if the derived file went missing. */

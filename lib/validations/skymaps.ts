@@ -14,6 +14,9 @@ export const coneQuerySchema = z.object({
 });
 export type ConeQuery = z.infer<typeof coneQuerySchema>;
 
+/** A sky position, for the distance at that position. */
+export const positionQuerySchema = coneQuerySchema.pick({ raDeg: true, decDeg: true });
+
 /** The 201 answer of both upload routes. */
 export interface SkymapUploadAnswer {
   id: string;
