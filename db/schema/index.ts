@@ -6,3 +6,4 @@ export * from "./events";
 export * from "./paging";
 export * from "./uploads";
 export * from "./settings";
+export * from "./instruments";

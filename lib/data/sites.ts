@@ -1,6 +1,6 @@
 import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
-import { siteObservers, sites, users, type Site } from "@/db/schema";
+import { instruments, siteObservers, sites, users, type Site } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
@@ -108,6 +108,9 @@ export async function createSite(actor: SessionUser, input: SiteInput, now: Date
     await checkCodeFree(tx, fields.code);
     const [row] = await tx.insert(sites).values({ ...fields, createdAt: now }).returning({ id: sites.id });
     if (!row) throw new Error("site insert returned nothing");
+    // A new site starts with one square instrument of the field it was given; coordinators edit it on the sites page.
+    const sideDeg = Math.sqrt(fields.fieldOfViewDeg2);
+    await tx.insert(instruments).values({ siteId: row.id, name: "Main camera", footprint: { shape: "rectangle", widthDeg: sideDeg, heightDeg: sideDeg }, filters: [], exposureS: 60, overheadS: 30, limitingMag: null, createdAt: now });
     await setObservers(tx, row.id, observerIds);
     await appendEvent(tx, { at: now, kind: eventKinds.siteChanged, actorId: actor.id, data: { siteId: row.id, code: fields.code, action: "created" } });
     return row.id;

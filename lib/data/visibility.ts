@@ -1,9 +1,10 @@
 import { and, desc, eq, gte, inArray, isNull, ne } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidates, skymaps, uploads, type TaskKind } from "@/db/schema";
+import { candidates, instruments, skymaps, uploads, type TaskKind } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { comingNight, localSiderealTimeDeg, julianDay, siteVisibility, type SiteVisibility } from "@/lib/astro";
 import { credibleRegionPoints } from "@/lib/skymap";
+import { footprintAreaDeg2 } from "@/lib/validations/instruments";
 import { listSites, type SiteRecord } from "./sites";
 import { readDisplayGrid } from "./skymaps";
 
@@ -152,6 +153,16 @@ export async function candidateVisibility(candidateId: string, now: Date): Promi
   return skymap ? skymapVisibility(skymap, now) : null;
 }
 
+/** Each site's widest instrument footprint area (deg²), for the sites that have instruments. */
+async function widestFieldsDeg2(siteIds: string[]): Promise<Map<string, number>> {
+  const widest = new Map<string, number>();
+  if (siteIds.length === 0) return widest;
+  const db = await getDb();
+  const rows = await db.select({ siteId: instruments.siteId, footprint: instruments.footprint }).from(instruments).where(inArray(instruments.siteId, siteIds));
+  for (const row of rows) widest.set(row.siteId, Math.max(widest.get(row.siteId) ?? 0, footprintAreaDeg2(row.footprint)));
+  return widest;
+}
+
 /** Task kind by field of view (common practice): a slit/fibre-sized field is for spectroscopy, a small imager for galaxy-targeted pointings, anything wider tiles the region. */
 export function taskKindForFieldOfView(fieldOfViewDeg2: number): TaskKind {
   if (fieldOfViewDeg2 < 0.1) return "spectroscopy";
@@ -192,13 +203,16 @@ export async function suggestTasks(candidateId: string, now: Date, options: Sugg
   const { rows } = await skymapVisibility(skymap, now);
   const minObservable = options.minObservable ?? 0.05;
   const chosen = rows.filter((r) => r.bestWindow && r.observableProbability >= minObservable).slice(0, options.maxSuggestions ?? 3);
+  const fieldsDeg2 = await widestFieldsDeg2(chosen.map((r) => r.site.id));
   const suggestions = chosen.map((row, rank): TaskSuggestion => {
     const window = row.bestWindow as VisibilityWindow;
-    const kind = taskKindForFieldOfView(row.site.fieldOfViewDeg2);
+    // The site's widest instrument decides the kind; a site without instruments falls back to its old single field.
+    const fieldDeg2 = fieldsDeg2.get(row.site.id) ?? row.site.fieldOfViewDeg2;
+    const kind = taskKindForFieldOfView(fieldDeg2);
     const observableAreaDeg2 = skymap.area90Deg2 * row.observableProbability;
-    const pointings = kind === "wide-field-tiling" ? Math.max(1, Math.ceil(observableAreaDeg2 / row.site.fieldOfViewDeg2)) : null;
+    const pointings = kind === "wide-field-tiling" ? Math.max(1, Math.ceil(observableAreaDeg2 / fieldDeg2)) : null;
     const moon = row.moonSeparationDeg === null ? "" : ` Moon ${Math.round(row.moonSeparationDeg)}° from the most probable position, ${pct(row.moonIllumination)} lit.`;
-    const cover = pointings ? ` About ${pointings} pointing${pointings === 1 ? "" : "s"} of ${row.site.fieldOfViewDeg2} deg² cover the observable part.` : "";
+    const cover = pointings ? ` About ${pointings} pointing${pointings === 1 ? "" : "s"} of ${Math.round(fieldDeg2 * 100) / 100} deg² cover the observable part.` : "";
     return {
       siteId: row.site.id,
       siteCode: row.site.code,

@@ -26,6 +26,7 @@ export const eventKinds = {
   skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
   reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }
   siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }
+  instrumentChanged: "instrument.changed", // data: { instrumentId, siteId, name, action: "created" | "updated" | "deleted" }
   shiftChanged: "shift.changed", // data: { shiftId, action: "created" | "updated" | "deleted" }
   settingsChanged: "settings.changed", // data: { key }
   userChanged: "user.changed", // data: { userId, action }

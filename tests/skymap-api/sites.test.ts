@@ -5,6 +5,7 @@ import { events, siteObservers } from "@/db/schema";
 import { eventKinds } from "@/lib/events/kinds";
 import * as siteRoute from "@/app/api/v1/sites/[id]/route";
 import * as sitesRoute from "@/app/api/v1/sites/route";
+import * as siteInstrumentsRoute from "@/app/api/v1/sites/[id]/instruments/route";
 import { call, createCaller, setupSkymapTest, type Caller, type SkymapTestEnv } from "./helpers";
 
 let env: SkymapTestEnv;
@@ -93,6 +94,13 @@ describe("sites: validation", () => {
     const res = await call(sitesRoute.POST, { caller: callers.coordinator, json: siteBody(override) });
     expect(res.status).toBe(422);
     expect((res.json.issues as Array<{ path: string }>).map((i) => i.path)).toContain(field);
+  });
+
+  it("gives a new site one square instrument of the field it was given", async () => {
+    const res = await call(sitesRoute.POST, { caller: callers.coordinator, json: siteBody({ fieldOfViewDeg2: "6.25" }) });
+    const id = (res.json.site as { id: string }).id;
+    const listed = await call(siteInstrumentsRoute.GET, { caller: callers.shifter, params: { id } });
+    expect(listed.json.instruments).toMatchObject([{ name: "Main camera", footprint: { shape: "rectangle", widthDeg: 2.5, heightDeg: 2.5 } }]);
   });
 
   it("turns a highest airmass into the lowest altitude (plane-parallel sec z: airmass 2 is 30°)", async () => {
