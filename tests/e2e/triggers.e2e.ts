@@ -58,7 +58,11 @@ export default async function triggersE2E(ctx: E2EContext): Promise<void> {
 
     await page.goto(`${ctx.baseUrl}/settings`);
     await page.locator("#grouping-window").waitFor({ timeout: 20_000 });
-    check((await page.locator("#grouping-window").inputValue()) === "1000", "the grouping form shows the ±1000 ms default");
+    // react-hook-form fills registered inputs from defaultValues after hydration, not in the server HTML: wait for it.
+    const windowShown = await page
+      .waitForFunction(() => (document.querySelector("#grouping-window") as HTMLInputElement | null)?.value === "1000", undefined, { timeout: 20_000 })
+      .then(() => true, () => false);
+    check(windowShown, "the grouping form shows the ±1000 ms default");
     await page.locator("form:has(#grouping-window)").screenshot({ path: `${ctx.artifactsDir}/triggers-settings.png` });
     ctx.log("a coordinator sees the grouping settings");
 
