@@ -23,6 +23,11 @@ export async function readBodyBytes(req: Request, limitBytes: number, noun = "bo
     }
     chunks.push(value);
   }
+  return concatBytes(chunks, total);
+}
+
+/** Joins chunks read from a stream into one buffer of `total` bytes. */
+export function concatBytes(chunks: Uint8Array[], total: number): Uint8Array<ArrayBuffer> {
   const out = new Uint8Array(total);
   let at = 0;
   for (const chunk of chunks) {

@@ -3,6 +3,7 @@ import { open, readFile, rm } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { checkSignatureHeaders } from "@/lib/feed/signature";
+import { concatBytes } from "./body";
 import { ApiError } from "./errors";
 
 /** Bodies up to this size are kept in memory while the MAC runs; larger ones go to a temporary file until verified. */
@@ -47,19 +48,9 @@ export async function readSignedBody(req: Request, secret: string, nowMs: number
       await file.close();
       return new Uint8Array(await readFile(spool));
     }
-    return concat(chunks, total);
+    return concatBytes(chunks, total);
   } finally {
     await file?.close().catch(() => undefined);
     if (spool) await rm(spool, { force: true });
   }
-}
-
-function concat(chunks: Uint8Array[], total: number): Uint8Array<ArrayBuffer> {
-  const out = new Uint8Array(total);
-  let at = 0;
-  for (const chunk of chunks) {
-    out.set(chunk, at);
-    at += chunk.byteLength;
-  }
-  return out;
 }
