@@ -1,5 +1,5 @@
 /**
- * The statements that store a new candidate, written by hand: the feed's hot path (lib/data/ingest.ts) and the
+ * The statements that store a new candidate, written by hand: the feed's hot path (lib/services/ingest-trigger.ts) and the
  * ingest benchmark's direct-insert baseline (bench/ingest-direct.ts) both use these, so the benchmark compares
  * like with like. Column encodings follow db/schema: instants as Unix ms, JSON columns as JSON text, ids as UUIDs.
  * Anything else (revisions of a known candidate, withdrawals, paging) goes through Drizzle.

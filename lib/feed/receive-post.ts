@@ -2,7 +2,7 @@ import { ApiError, invalid, zodIssues, type FieldIssue } from "@/lib/api/errors"
 import { decodeUtf8 } from "@/lib/api/request-input";
 import { parseStrictJson } from "@/lib/api/strict-json";
 import { recordDeadLetter } from "@/lib/data/dead-letters";
-import { ingestCandidate } from "@/lib/data/ingest";
+import { ingestCandidate } from "@/lib/services/ingest-trigger";
 import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
 
 export const maxFeedBodyBytes = 5 * 1024 * 1024;

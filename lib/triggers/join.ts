@@ -1,6 +1,6 @@
 import type { GroupWrite } from "@/lib/feed/group-commit";
 import { appendEvent } from "@/lib/data/events";
-import type { IngestResult } from "@/lib/data/ingest";
+import type { IngestResult } from "@/lib/services/ingest-trigger";
 import { insertDerivedStatement, insertRevisionStatement, insertTriggerStatement, type NewCandidateRow } from "@/lib/data/ingest-sql";
 import { eventKinds } from "@/lib/events/kinds";
 import { onTriggerJoined } from "@/lib/notify/hooks";

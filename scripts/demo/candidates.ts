@@ -6,7 +6,7 @@ import { candidates, escalations, notifications, sites, users } from "@/db/schem
 import { FeedGenerator } from "@/fakes/feed/generator";
 import { FeedRandom } from "@/fakes/feed/random";
 import { toSessionUser, type SessionUser } from "@/lib/auth/roles";
-import { ingestCandidate } from "@/lib/data/ingest";
+import { ingestCandidate } from "@/lib/services/ingest-trigger";
 import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { uploadSkymap } from "@/lib/data/skymaps";

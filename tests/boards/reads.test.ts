@@ -5,7 +5,7 @@ import { GET as notesGet, POST as notesPost } from "@/app/api/v1/candidates/[id]
 import { GET as rosterRoute } from "@/app/api/v1/roster/route";
 import { getDb } from "@/db";
 import { shifts } from "@/db/schema";
-import { ingestCandidate } from "@/lib/data/ingest";
+import { ingestCandidate } from "@/lib/services/ingest-trigger";
 import { transitionCandidate } from "@/lib/data/triage";
 import type { BoardData, CandidateListPage, NoteView } from "@/lib/data/candidates";
 import type { Roster } from "@/lib/data/triage";

@@ -1,5 +1,5 @@
 import type { Stage, TriageState } from "@/db/schema";
-import { ingestCandidate } from "@/lib/data/ingest";
+import { ingestCandidate } from "@/lib/services/ingest-trigger";
 import type { SessionUser } from "@/lib/auth/roles";
 import { createTasks, listSiteOptions } from "@/lib/data/tasks";
 import { transitionCandidate } from "@/lib/data/triage";

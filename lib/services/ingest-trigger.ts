@@ -13,7 +13,7 @@ import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
 import { joinCandidate } from "@/lib/triggers/join";
 import { settleCandidate } from "@/lib/triggers/settle";
 import type { FeedCandidate } from "@/lib/validations/feed";
-import { appendEvent } from "./events";
+import { appendEvent } from "@/lib/data/events";
 import {
   insertCandidateStatement,
   insertCreatedEventStatement,
@@ -23,9 +23,9 @@ import {
   lookupStatement,
   cardData,
   type NewCandidateRow,
-} from "./ingest-sql";
-import { getSetting } from "./settings";
-import { findCoincidentCandidateId, readCandidateRow, readTrigger, updateTriggerRevision } from "./triggers";
+} from "@/lib/data/ingest-sql";
+import { getSetting } from "@/lib/data/settings";
+import { findCoincidentCandidateId, readCandidateRow, readTrigger, updateTriggerRevision } from "@/lib/data/triggers";
 
 /**
  * created: a new candidate; joined: a new trigger of an existing candidate (coincident in time); revised: a new

@@ -1,0 +1,87 @@
+import { describe, expect, it } from "vitest";
+import { listSourceFiles, productFolders, readImports, readSource } from "@/tests/support/source-tree";
+
+const root = process.cwd();
+const within = (target: string, folder: string) => target === folder || target.startsWith(`${folder}/`);
+
+/** Storage is the bottom layer: it may not call up into the areas that use it. */
+const aboveStorage = ["lib/notify", "lib/review", "lib/feed", "lib/triage", "lib/services"];
+
+/**
+ * Files that still break a rule while issue 12's moves are under way. Each entry must still break it (the test
+ * fails once a file is fixed, so the list only shrinks) and nothing new may join.
+ */
+const storageStillCallingUp = ["lib/data/candidate-detail.ts", "lib/data/ingest-sql.ts", "lib/data/review.ts", "lib/data/tasks.ts", "lib/data/triage.ts"];
+const envStillReadOutsideConfig = [
+  "app/(desk)/dev/mailbox/page.tsx",
+  "app/(desk)/layout.tsx",
+  "app/api/v1/events/route.ts",
+  "app/api/v1/push/vapid-public-key/route.ts",
+  "db/index.ts",
+  "lib/auth/client-address.ts",
+  "lib/auth/credentials.ts",
+  "lib/feed/derive-pool.ts",
+  "lib/feed/network.ts",
+  "lib/feed/signature.ts",
+  "lib/notify/ack-links.ts",
+  "lib/notify/links.ts",
+  "lib/notify/worker.ts",
+  "lib/storage/file-store.ts",
+  "server/peer-address.mjs",
+];
+/** The configuration module: the one product file that reads the environment. */
+const configModule = "lib/env.ts";
+
+function storageOffenders(): Map<string, string[]> {
+  const out = new Map<string, string[]>();
+  for (const file of listSourceFiles(root, ["lib/data"])) {
+    const bad = readImports(file, readSource(root, file))
+      .imports.filter((site) => site.target !== null && aboveStorage.some((folder) => within(site.target as string, folder)))
+      .map((site) => `${file}:${site.line} imports ${site.specifier}`);
+    if (bad.length) out.set(file, bad);
+  }
+  return out;
+}
+
+/** Code that reads process.env, ignoring comments (a comment may say why a value is not read from it). */
+function readsEnv(text: string): boolean {
+  const code = text.replace(/\/\*[\s\S]*?\*\//g, "").replace(/(^|[^:"'`])\/\/.*$/gm, "$1");
+  return /\bprocess\.env\b/.test(code);
+}
+
+describe("storage sits at the bottom", () => {
+  it("finds the storage files", () => {
+    expect(listSourceFiles(root, ["lib/data"])).toContain("lib/data/tasks.ts");
+  });
+
+  it("no lib/data file imports lib/notify, lib/review, lib/feed, lib/triage or lib/services (beyond the shrinking list)", () => {
+    const offenders = storageOffenders();
+    const fresh = [...offenders].filter(([file]) => !storageStillCallingUp.includes(file)).flatMap(([, lines]) => lines);
+    expect(fresh).toEqual([]);
+    const fixed = storageStillCallingUp.filter((file) => !offenders.has(file));
+    expect(fixed, "these files obey the rule now: take them off storageStillCallingUp").toEqual([]);
+  });
+
+  it("the checker sees an upward import", () => {
+    const { imports } = readImports("lib/data/x.ts", 'import { a } from "@/lib/notify/hooks";\nimport { b } from "../review/facts";');
+    expect(imports.map((i) => i.target).filter((t) => t !== null && aboveStorage.some((f) => within(t, f)))).toEqual(["lib/notify/hooks", "lib/review/facts"]);
+  });
+});
+
+describe("configuration is read in one place", () => {
+  it("the configuration module reads the environment", () => {
+    expect(readsEnv(readSource(root, configModule))).toBe(true);
+  });
+
+  it("no other product file reads process.env (beyond the shrinking list)", () => {
+    const readers = listSourceFiles(root, productFolders).filter((file) => file !== configModule && readsEnv(readSource(root, file)));
+    expect(readers.filter((file) => !envStillReadOutsideConfig.includes(file))).toEqual([]);
+    const fixed = envStillReadOutsideConfig.filter((file) => !readers.includes(file));
+    expect(fixed, "these files no longer read process.env: take them off envStillReadOutsideConfig").toEqual([]);
+  });
+
+  it("the checker ignores comments", () => {
+    expect(readsEnv("// process.env is not read here\nconst a = 1;")).toBe(false);
+    expect(readsEnv("/* process.env */ const a = process.env.X;")).toBe(true);
+  });
+});
