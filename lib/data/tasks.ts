@@ -7,16 +7,11 @@ import {
   taskReports,
   users,
   type FollowUpTask,
+  type NewFollowUpTask,
   type TaskState,
 } from "@/db/schema";
-import { ApiError } from "@/lib/api/errors";
-import { can, type SessionUser } from "@/lib/auth/roles";
-import { requireRole } from "@/lib/auth/require-role";
-import { eventKinds } from "@/lib/events/kinds";
-import { onTasksCancelled, onTasksCreated } from "@/lib/notify/hooks";
-import { allowedTaskMoves, canMoveTask, taskStateLabels } from "@/lib/triage/task-states";
-import type { TaskDraft, TaskListQuery } from "@/lib/validations/tasks";
-import { appendEvent } from "./events";
+import type { SessionUser } from "@/lib/auth/roles";
+import type { TaskListQuery } from "@/lib/validations/tasks";
 
 export interface TaskCard {
   id: string;
@@ -34,6 +29,9 @@ export interface TaskCard {
   site: { id: string; code: string; name: string } | null;
   claimedBy: { id: string; name: string; initials: string } | null;
 }
+
+/** States a task is still being worked in: a withdrawal or a cancellation ends them. */
+export const unfinishedTaskStates = ["open", "claimed", "observing"] as const satisfies readonly TaskState[];
 
 /** The follow-up board's cards in one query (site, candidate and claimer joined), urgent first. */
 export async function listTasks(
@@ -102,210 +100,93 @@ export async function listSiteOptions(): Promise<Array<{ id: string; code: strin
   return db.select({ id: sites.id, code: sites.code, name: sites.name }).from(sites).orderBy(asc(sites.code));
 }
 
-/** Creates follow-up tasks for a candidate that is going for follow-up, each with its audit event. */
-export async function createTasks(
-  actor: SessionUser,
-  candidateId: string,
-  drafts: TaskDraft[],
-  now: Date = new Date(),
-): Promise<FollowUpTask[]> {
-  requireRole(actor, can.planFollowUp, "plan follow-up");
-  const db = await getDb();
-  return db.transaction(async (tx) => {
-      const [candidate] = await tx.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
-      if (!candidate) throw new ApiError(404, "candidate not found");
-      if (candidate.stage === "withdrawn") throw new ApiError(422, "the feed withdrew this candidate; no new tasks");
-      if (candidate.triageState !== "pursue") {
-        throw new ApiError(422, "move the candidate to Pursue before planning follow-up", {
-          triageState: candidate.triageState,
-        });
-      }
-      const siteIds = [...new Set(drafts.map((d) => d.siteId).filter((id): id is string => Boolean(id)))];
-      if (siteIds.length) {
-        const known = await tx.select({ id: sites.id }).from(sites).where(inArray(sites.id, siteIds));
-        const missing = siteIds.filter((id) => !known.some((k) => k.id === id));
-        if (missing.length) throw new ApiError(422, `unknown site: ${missing.join(", ")}`);
-      }
-      const created = await tx
-        .insert(followUpTasks)
-        .values(drafts.map((d) => ({ ...d, candidateId, createdById: actor.id, createdAt: now, updatedAt: now })))
-        .returning();
-      let firstEventId: number | null = null;
-      for (const task of created) {
-        const event = await appendEvent(tx, {
-          at: now,
-          kind: eventKinds.taskCreated,
-          actorId: actor.id,
-          candidateId,
-          taskId: task.id,
-          toState: task.state,
-          data: { kind: task.kind, siteId: task.siteId, priority: task.priority },
-        });
-        firstEventId ??= event.id;
-      }
-      // Observers who follow these sites hear about the new tasks, committed with them.
-      if (firstEventId !== null) await onTasksCreated(tx, { candidateId, eventId: firstEventId, taskIds: created.map((t) => t.id) });
-      return created;
-    });
+/** Which of these site ids exist. */
+export async function findSiteIds(tx: Tx, siteIds: string[]): Promise<string[]> {
+  if (siteIds.length === 0) return [];
+  const rows = await tx.select({ id: sites.id }).from(sites).where(inArray(sites.id, siteIds));
+  return rows.map((row) => row.id);
+}
+
+export async function insertTasks(tx: Tx, rows: NewFollowUpTask[]): Promise<FollowUpTask[]> {
+  return tx.insert(followUpTasks).values(rows).returning();
+}
+
+export async function readTask(tx: Tx, taskId: string): Promise<FollowUpTask | null> {
+  const [task] = await tx.select().from(followUpTasks).where(eq(followUpTasks.id, taskId)).limit(1);
+  return task ?? null;
 }
 
 /**
- * Claims an open task. One conditional UPDATE (`where state = 'open'`) inside a write transaction decides: exactly
- * one of several simultaneous claims wins; the others get 409 with who holds the task.
+ * Claims an open task with one conditional UPDATE (`where state = 'open'`): of several simultaneous claims exactly
+ * one gets the row back; the others get null.
  */
-export async function claimTask(actor: SessionUser, taskId: string, now: Date = new Date()): Promise<FollowUpTask> {
-  requireRole(actor, can.claimTask, "claim tasks");
-  const db = await getDb();
-  return db.transaction(async (tx) => {
-      const [won] = await tx
-        .update(followUpTasks)
-        .set({
-          state: "claimed",
-          claimedById: actor.id,
-          claimedAt: now,
-          updatedAt: now,
-          version: sql`${followUpTasks.version} + 1`,
-        })
-        .where(and(eq(followUpTasks.id, taskId), eq(followUpTasks.state, "open")))
-        .returning();
-      if (!won) throw await claimRefusal(tx, taskId);
-      await appendEvent(tx, {
-        at: now,
-        kind: eventKinds.taskStateChanged,
-        actorId: actor.id,
-        candidateId: won.candidateId,
-        taskId,
-        fromState: "open",
-        toState: "claimed",
-        data: { claimedById: actor.id },
-      });
-      return won;
-    });
+export async function claimOpenTask(tx: Tx, taskId: string, claimerId: string, now: Date): Promise<FollowUpTask | null> {
+  const [won] = await tx
+    .update(followUpTasks)
+    .set({ state: "claimed", claimedById: claimerId, claimedAt: now, updatedAt: now, version: sql`${followUpTasks.version} + 1` })
+    .where(and(eq(followUpTasks.id, taskId), eq(followUpTasks.state, "open")))
+    .returning();
+  return won ?? null;
 }
 
-async function claimRefusal(tx: Tx, taskId: string): Promise<ApiError> {
+/** A task's state and who holds it (for a refused claim), or null when there is no such task. */
+export async function readTaskHolder(
+  tx: Tx,
+  taskId: string,
+): Promise<{ state: TaskState; claimedBy: { id: string; name: string } | null } | null> {
   const [row] = await tx
     .select({ state: followUpTasks.state, claimerId: users.id, claimerName: users.name })
     .from(followUpTasks)
     .leftJoin(users, eq(users.id, followUpTasks.claimedById))
     .where(eq(followUpTasks.id, taskId))
     .limit(1);
-  if (!row) return new ApiError(404, "task not found");
-  const claimedBy = row.claimerId ? { id: row.claimerId, name: row.claimerName ?? "someone" } : null;
-  if (claimedBy) return new ApiError(409, `${claimedBy.name} already claimed this task`, { claimedBy, state: row.state });
-  return new ApiError(409, `the task is ${taskStateLabels[row.state].toLowerCase()}, not open`, { claimedBy, state: row.state });
+  if (!row) return null;
+  return { state: row.state, claimedBy: row.claimerId ? { id: row.claimerId, name: row.claimerName ?? "someone" } : null };
 }
 
-export interface TaskMoveInput {
-  actor: SessionUser;
-  taskId: string;
-  to: "open" | "observing" | "cancelled";
-  reason?: string;
-  expectedVersion?: number;
-  now?: Date;
+export type TaskChanges = Partial<
+  Pick<FollowUpTask, "state" | "claimedById" | "claimedAt" | "observingAt" | "cancelledAt" | "reportedAt" | "result">
+>;
+
+/** Applies a change if nobody wrote the task since `task` was read (optimistic concurrency); null when someone did. */
+export async function updateTaskVersioned(
+  tx: Tx,
+  task: Pick<FollowUpTask, "id" | "version">,
+  changes: TaskChanges,
+  now: Date,
+): Promise<FollowUpTask | null> {
+  const [updated] = await tx
+    .update(followUpTasks)
+    .set({ ...changes, updatedAt: now, version: sql`${followUpTasks.version} + 1` })
+    .where(and(eq(followUpTasks.id, task.id), eq(followUpTasks.version, task.version)))
+    .returning();
+  return updated ?? null;
 }
 
-/** Release (claimed → open), start observing, or cancel. The claimer or a coordinator releases and starts. */
-export async function moveTask(input: TaskMoveInput): Promise<FollowUpTask> {
-  const { actor, taskId, to } = input;
-  requireRole(actor, to === "cancelled" ? can.planFollowUp : can.claimTask, to === "cancelled" ? "cancel tasks" : "work on tasks");
-  const db = await getDb();
-  return db.transaction(async (tx) => {
-      const now = input.now ?? new Date();
-      const task = await readTaskForMove(tx, taskId, to, input.expectedVersion);
-      if (to !== "cancelled") requireClaimerOrCoordinator(actor, task);
-      const [updated] = await tx
-        .update(followUpTasks)
-        .set({
-          state: to,
-          updatedAt: now,
-          version: sql`${followUpTasks.version} + 1`,
-          ...(to === "open" ? { claimedById: null, claimedAt: null } : {}),
-          ...(to === "observing" ? { observingAt: now } : {}),
-          ...(to === "cancelled" ? { cancelledAt: now } : {}),
-        })
-        .where(and(eq(followUpTasks.id, taskId), eq(followUpTasks.version, task.version)))
-        .returning();
-      if (!updated) throw new ApiError(409, "the task changed meanwhile; reload");
-      const event = await appendEvent(tx, {
-        at: now,
-        kind: to === "cancelled" ? eventKinds.taskCancelled : eventKinds.taskStateChanged,
-        actorId: actor.id,
-        candidateId: task.candidateId,
-        taskId,
-        fromState: task.state,
-        toState: to,
-        data: to === "cancelled" ? { reason: input.reason ?? "" } : { claimedById: updated.claimedById },
-      });
-      if (to === "cancelled") {
-        await onTasksCancelled(tx, {
-          candidateId: task.candidateId,
-          eventId: event.id,
-          ownerIds: task.claimedById ? [task.claimedById] : [],
-          taskIds: [taskId],
-          reason: input.reason ?? "",
-        });
-      }
-      return updated;
-    });
+export async function insertTaskReport(tx: Tx, row: { taskId: string; authorId: string; result: string; createdAt: Date }): Promise<string> {
+  const [report] = await tx.insert(taskReports).values(row).returning({ id: taskReports.id });
+  if (!report) throw new Error("report insert returned nothing");
+  return report.id;
 }
 
-/** Records the observer's result; the task is then reported (final). */
-export async function reportTask(
-  actor: SessionUser,
-  taskId: string,
-  result: string,
-  now: Date = new Date(),
-): Promise<{ task: FollowUpTask; reportId: string }> {
-  requireRole(actor, can.claimTask, "report tasks");
-  const db = await getDb();
-  return db.transaction(async (tx) => {
-      const task = await readTaskForMove(tx, taskId, "reported");
-      requireClaimerOrCoordinator(actor, task);
-      const [report] = await tx
-        .insert(taskReports)
-        .values({ taskId, authorId: actor.id, result, createdAt: now })
-        .returning({ id: taskReports.id });
-      if (!report) throw new Error("report insert returned nothing");
-      const [updated] = await tx
-        .update(followUpTasks)
-        .set({ state: "reported", result, reportedAt: now, updatedAt: now, version: sql`${followUpTasks.version} + 1` })
-        .where(and(eq(followUpTasks.id, taskId), eq(followUpTasks.version, task.version)))
-        .returning();
-      if (!updated) throw new ApiError(409, "the task changed meanwhile; reload");
-      await appendEvent(tx, {
-        at: now,
-        kind: eventKinds.taskReported,
-        actorId: actor.id,
-        candidateId: task.candidateId,
-        taskId,
-        fromState: task.state,
-        toState: "reported",
-        data: { reportId: report.id },
-      });
-      return { task: updated, reportId: report.id };
-    });
+/** A candidate's tasks that are still being worked (open, claimed or observing). */
+export async function listUnfinishedTasks(tx: Tx, candidateId: string): Promise<FollowUpTask[]> {
+  return tx
+    .select()
+    .from(followUpTasks)
+    .where(and(eq(followUpTasks.candidateId, candidateId), inArray(followUpTasks.state, unfinishedTaskStates)));
 }
 
-async function readTaskForMove(tx: Tx, taskId: string, to: TaskState, expectedVersion?: number): Promise<FollowUpTask> {
-  const [task] = await tx.select().from(followUpTasks).where(eq(followUpTasks.id, taskId)).limit(1);
-  if (!task) throw new ApiError(404, "task not found");
-  if (expectedVersion !== undefined && expectedVersion !== task.version) {
-    throw new ApiError(409, "the task changed since you loaded it", { current: { state: task.state, version: task.version } });
-  }
-  if (!canMoveTask(task.state, to)) {
-    const status = task.state === "reported" || task.state === "cancelled" ? 409 : 422;
-    throw new ApiError(status, `a task that is ${taskStateLabels[task.state].toLowerCase()} cannot become ${taskStateLabels[to].toLowerCase()}`, {
-      from: task.state,
-      to,
-      allowed: allowedTaskMoves[task.state],
-    });
-  }
-  return task;
-}
-
-function requireClaimerOrCoordinator(actor: SessionUser, task: FollowUpTask): void {
-  if (actor.role !== "coordinator" && task.claimedById !== actor.id) {
-    throw new ApiError(403, "only the observer who claimed this task (or a coordinator) may do that");
-  }
+/**
+ * Cancels these tasks in one UPDATE, each only if nobody wrote it since it was read (its version) and it is still
+ * unfinished; answers the rows it cancelled.
+ */
+export async function cancelTaskRows(tx: Tx, tasks: Array<Pick<FollowUpTask, "id" | "version">>, now: Date): Promise<FollowUpTask[]> {
+  if (tasks.length === 0) return [];
+  const unchanged = or(...tasks.map((task) => and(eq(followUpTasks.id, task.id), eq(followUpTasks.version, task.version))));
+  return tx
+    .update(followUpTasks)
+    .set({ state: "cancelled", cancelledAt: now, updatedAt: now, version: sql`${followUpTasks.version} + 1` })
+    .where(and(unchanged, inArray(followUpTasks.state, unfinishedTaskStates)))
+    .returning();
 }

@@ -1,15 +1,14 @@
 import { randomUUID } from "node:crypto";
 import type { Transaction } from "@libsql/client";
-import { and, eq, inArray, sql } from "drizzle-orm";
 import { getDb, isUniqueViolation, type Tx } from "@/db";
-import { followUpTasks, type Trigger } from "@/db/schema";
+import type { Trigger } from "@/db/schema";
 import type { DerivedForFeed } from "@/lib/feed/derive-messages";
 import { derivePool } from "@/lib/feed/derive-pool";
 import { createGroupCommitter, type GroupWrite } from "@/lib/feed/group-commit";
 import { diffHeadlines, type DerivedHeadline, type RevisionHeadline } from "@/lib/feed/headline";
 import { derivationSeed, revisionHeadline, toPhysicsInput } from "@/lib/feed/physics-input";
 import { eventKinds } from "@/lib/events/kinds";
-import { onCandidateIngested, onTasksCancelled } from "@/lib/notify/hooks";
+import { onCandidateIngested } from "@/lib/notify/hooks";
 import { joinCandidate } from "@/lib/triggers/join";
 import { settleCandidate } from "@/lib/triggers/settle";
 import type { FeedCandidate } from "@/lib/validations/feed";
@@ -25,7 +24,9 @@ import {
   type NewCandidateRow,
 } from "@/lib/data/ingest-sql";
 import { getSetting } from "@/lib/data/settings";
+import { listUnfinishedTasks } from "@/lib/data/tasks";
 import { findCoincidentCandidateId, readCandidateRow, readTrigger, updateTriggerRevision } from "@/lib/data/triggers";
+import { cancelTasks } from "./cancel-tasks";
 
 /**
  * created: a new candidate; joined: a new trigger of an existing candidate (coincident in time); revised: a new
@@ -46,7 +47,6 @@ export interface IngestResult {
   derivedJson: string;
 }
 
-const openTaskStates = ["open", "claimed", "observing"] as const;
 const withdrawalReason = "the feed withdrew the candidate";
 
 /**
@@ -293,18 +293,9 @@ async function reviseTrigger(tx: Tx, trigger: Trigger, payload: FeedCandidate, h
   return settled.preferred.id === trigger.id;
 }
 
-/** Cancels the candidate's unfinished follow-up tasks, one event each, and tells paging who held them. */
+/** Withdraws the candidate: its event, then its unfinished follow-up tasks cancelled through cancelTasks. */
 async function withdrawCandidate(tx: Tx, candidateId: string, revision: number, at: Date): Promise<void> {
-  const tasks = await tx
-    .select({ id: followUpTasks.id, state: followUpTasks.state, ownerId: followUpTasks.claimedById })
-    .from(followUpTasks)
-    .where(and(eq(followUpTasks.candidateId, candidateId), inArray(followUpTasks.state, openTaskStates)));
-  if (tasks.length > 0) {
-    await tx
-      .update(followUpTasks)
-      .set({ state: "cancelled", cancelledAt: at, updatedAt: at, version: sql`${followUpTasks.version} + 1` })
-      .where(inArray(followUpTasks.id, tasks.map((task) => task.id)));
-  }
+  const tasks = await listUnfinishedTasks(tx, candidateId);
   const withdrawnEvent = await appendEvent(tx, {
     at,
     kind: eventKinds.candidateWithdrawn,
@@ -312,24 +303,5 @@ async function withdrawCandidate(tx: Tx, candidateId: string, revision: number, 
     toState: "withdrawn",
     data: { revision, cancelledTaskIds: tasks.map((task) => task.id) },
   });
-  for (const task of tasks) {
-    await appendEvent(tx, {
-      at,
-      kind: eventKinds.taskCancelled,
-      candidateId,
-      taskId: task.id,
-      fromState: task.state,
-      toState: "cancelled",
-      data: { reason: withdrawalReason, ownerId: task.ownerId },
-    });
-  }
-  if (tasks.length === 0) return;
-  const ownerIds = [...new Set(tasks.flatMap((task) => (task.ownerId ? [task.ownerId] : [])))];
-  await onTasksCancelled(tx, {
-    candidateId,
-    eventId: withdrawnEvent.id,
-    ownerIds,
-    taskIds: tasks.map((task) => task.id),
-    reason: withdrawalReason,
-  });
+  await cancelTasks(tx, { candidateId, tasks, reason: withdrawalReason, actorId: null, at, causeEventId: withdrawnEvent.id });
 }

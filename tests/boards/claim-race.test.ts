@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { events, followUpTasks } from "@/db/schema";
 import { POST as claimRoute } from "@/app/api/v1/tasks/[id]/claim/route";
-import { createTasks } from "@/lib/data/tasks";
+import { createTasks } from "@/lib/services/create-tasks";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { callRoute, createCaller, insertCandidate, type Caller } from "./helpers/api";
 

@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { checkReportFileType } from "@/lib/storage";
-import { claimTask, createTasks, reportTask } from "@/lib/data/tasks";
+import { claimTask } from "@/lib/services/claim-task";
+import { createTasks } from "@/lib/services/create-tasks";
+import { reportTask } from "@/lib/services/move-task";
 import * as reportFilesRoute from "@/app/api/v1/reports/[reportId]/files/route";
 import * as reportsRoute from "@/app/api/v1/reports/route";
 import * as uploadRoute from "@/app/api/v1/uploads/[id]/route";

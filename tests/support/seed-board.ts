@@ -1,7 +1,8 @@
 import type { Stage, TriageState } from "@/db/schema";
 import { ingestCandidate } from "@/lib/services/ingest-trigger";
 import type { SessionUser } from "@/lib/auth/roles";
-import { createTasks, listSiteOptions } from "@/lib/data/tasks";
+import { listSiteOptions } from "@/lib/data/tasks";
+import { createTasks } from "@/lib/services/create-tasks";
 import { transitionCandidate } from "@/lib/data/triage";
 import { taskKinds } from "@/db/schema";
 import { candidatePayload } from "./candidate-payload";

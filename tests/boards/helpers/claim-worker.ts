@@ -5,7 +5,7 @@
 import { closeDb, getDb } from "@/db";
 import type { SessionUser } from "@/lib/auth/roles";
 import { ApiError } from "@/lib/api/errors";
-import { claimTask } from "@/lib/data/tasks";
+import { claimTask } from "@/lib/services/claim-task";
 
 interface ClaimMessage {
   taskId: string;

@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { createTasks, listTasks } from "@/lib/data/tasks";
+import { listTasks } from "@/lib/data/tasks";
+import { createTasks } from "@/lib/services/create-tasks";
 import { createTasksBodySchema } from "@/lib/validations/tasks";
 import { idParams } from "@/lib/validations/params";
 

@@ -1,6 +1,6 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { reportTask } from "@/lib/data/tasks";
+import { reportTask } from "@/lib/services/move-task";
 import { taskReportBodySchema } from "@/lib/validations/tasks";
 import { idParams } from "@/lib/validations/params";
 

@@ -1,6 +1,6 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { moveTask } from "@/lib/data/tasks";
+import { moveTask } from "@/lib/services/move-task";
 import { taskStateBodySchema } from "@/lib/validations/tasks";
 import { idParams } from "@/lib/validations/params";
 
