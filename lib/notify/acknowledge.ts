@@ -4,7 +4,7 @@ import { ackTokens, candidates, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole } from "@/lib/auth/roles";
 import { loadSessionUser } from "@/lib/auth/session";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import { ackLinkSecret, verifyAckToken } from "./ack-links";
 import type { CandidateSummary } from "./content";
 

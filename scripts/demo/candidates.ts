@@ -13,7 +13,7 @@ import { uploadSkymap } from "@/lib/data/skymaps";
 import { claimTask } from "@/lib/services/claim-task";
 import { createTasks } from "@/lib/services/create-tasks";
 import { moveTask, reportTask } from "@/lib/services/move-task";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import { setNotifyClock } from "@/lib/notify/clock";
 import { demoNetwork } from "./scenario";
 

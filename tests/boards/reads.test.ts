@@ -6,7 +6,7 @@ import { GET as rosterRoute } from "@/app/api/v1/roster/route";
 import { getDb } from "@/db";
 import { shifts } from "@/db/schema";
 import { ingestCandidate } from "@/lib/services/ingest-trigger";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import type { BoardData, CandidateListPage, NoteView } from "@/lib/data/candidates";
 import type { Roster } from "@/lib/data/triage";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";

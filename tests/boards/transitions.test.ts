@@ -4,7 +4,7 @@ import { getDb } from "@/db";
 import { candidates, events, triageStates, type Role, type TriageState } from "@/db/schema";
 import { POST as assignRoute } from "@/app/api/v1/candidates/[id]/assign/route";
 import { POST as triageRoute } from "@/app/api/v1/candidates/[id]/triage/route";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import type * as Hooks from "@/lib/notify/hooks";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { callRoute, createCaller, insertCandidate, type Caller } from "./helpers/api";

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { loadCandidateFacts } from "@/lib/data/review";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { setNotifyClock } from "@/lib/notify/clock";
 import { candidateSteps } from "@/lib/review/timeline";

@@ -3,7 +3,7 @@ import { ingestCandidate } from "@/lib/services/ingest-trigger";
 import type { SessionUser } from "@/lib/auth/roles";
 import { listSiteOptions } from "@/lib/data/tasks";
 import { createTasks } from "@/lib/services/create-tasks";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import { taskKinds } from "@/db/schema";
 import { candidatePayload } from "./candidate-payload";
 

@@ -1,6 +1,6 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { assignCandidate } from "@/lib/data/triage";
+import { assignCandidate } from "@/lib/services/move-card";
 import { assignBodySchema } from "@/lib/validations/triage";
 import { idParams } from "@/lib/validations/params";
 

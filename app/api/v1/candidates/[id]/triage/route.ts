@@ -1,6 +1,6 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { transitionCandidate } from "@/lib/data/triage";
+import { transitionCandidate } from "@/lib/services/move-card";
 import { transitionBodySchema } from "@/lib/validations/triage";
 import { idParams } from "@/lib/validations/params";
 
