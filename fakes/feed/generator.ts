@@ -56,12 +56,14 @@ interface IssuedCandidate {
   awaitingFirstLook: boolean;
 }
 
-/** `T<yyMMdd>.<seconds of day, 5 digits><counter, 2 digits>`: our own id scheme, readable and sortable. */
+/**
+ * `trg-<event time, ms since 1970, base 36, 9 characters>-<counter, base 36, 2 characters>`: our own id scheme.
+ * Fixed widths keep it sortable by event time; it carries no calendar date and no leading letter code, so it
+ * cannot be mistaken for a network's public alert name (letter + YYMMDD + day fraction).
+ */
 function externalIdFor(eventTimeMs: number, counter: number): string {
-  const iso = new Date(eventTimeMs).toISOString();
-  const date = iso.slice(2, 10).replaceAll("-", "");
-  const secondsOfDay = Math.floor((eventTimeMs % 86_400_000) / 1000);
-  return `T${date}.${String(secondsOfDay).padStart(5, "0")}${String(counter % 100).padStart(2, "0")}`;
+  const time = Math.max(0, Math.floor(eventTimeMs)).toString(36).padStart(9, "0");
+  return `trg-${time}-${(counter % 1296).toString(36).padStart(2, "0")}`;
 }
 
 /**

@@ -133,3 +133,27 @@ describe("the fake feed generator", () => {
     expect(() => parseRate("fast")).toThrow(/rate/);
   });
 });
+
+describe("the fake feed's external ids", () => {
+  // A network's public alert names read letter + YYMMDD + day fraction (e.g. X261201a or X261201.12345); ours must not.
+  const alertNameLike = /^[A-Z]{1,2}\d{6}(?:[._]?\d+|[a-z]{1,3})?$/;
+
+  it("carry no calendar date, stay unique and sort by event time", () => {
+    const posts = run("mixed", "5", 200).filter((p) => p.payload);
+    const ids = posts.map((p) => p.payload!.externalId);
+    for (const id of ids) {
+      expect(id).toMatch(/^trg-[0-9a-z]{9}-[0-9a-z]{2}$/);
+      expect(id).not.toMatch(alertNameLike);
+    }
+    const firstReports = posts.filter((p) => p.payload!.revision === 1).map((p) => p.payload!);
+    expect(new Set(firstReports.map((p) => `${p.source}/${p.externalId}`)).size).toBe(firstReports.length);
+    const byTime = [...firstReports].sort((a, b) => Date.parse(a.eventTime) - Date.parse(b.eventTime));
+    const timeParts = byTime.map((p) => p.externalId.slice(4, 13));
+    expect([...timeParts].sort()).toEqual(timeParts);
+  });
+
+  it("the alert-name pattern above does recognise the old form, so the check can fail", () => {
+    expect("T261201.1234501").toMatch(alertNameLike);
+    expect("S261201ab").toMatch(alertNameLike);
+  });
+});

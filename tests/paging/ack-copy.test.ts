@@ -3,7 +3,7 @@ import { acknowledgedText } from "@/lib/notify/ack-copy";
 
 const candidate = {
   id: "c1",
-  externalId: "T261202.0001",
+  externalId: "trg-0mx5x0000-01",
   source: "pipeline-alpha",
   stage: "first-look" as const,
   networkSnr: 11.8,

@@ -57,7 +57,7 @@ export async function insertCandidate(
     .insert(candidates)
     .values({
       source: "test-pipe",
-      externalId: `T${String(counter).padStart(5, "0")}`,
+      externalId: `trg-board-${String(counter).padStart(5, "0")}`,
       currentRevision: 1,
       stage: overrides.stage ?? "first-look",
       triageState: overrides.triageState ?? "new",

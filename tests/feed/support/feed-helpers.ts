@@ -37,7 +37,7 @@ export function samplePayload(overrides: Partial<FeedCandidate> = {}): FeedCandi
   const t = Array.from({ length: 60 }, (_, i) => -30 + i * 0.45);
   return {
     source: "pipeline-test",
-    externalId: `T261201.${String(counter).padStart(5, "0")}`,
+    externalId: `trg-feed-${String(counter).padStart(5, "0")}`,
     revision: 1,
     stage: "first-look",
     // A signal of its own: 10 s from the previous sample's, far outside the ±1 s coincidence window.
