@@ -33,3 +33,17 @@ export {
   type SiteVisibilityInput,
   type WeightedPosition,
 } from "./visibility";
+export {
+  airmassAtAltitude,
+  ASTRONOMICAL_NIGHT_SUN_DEG,
+  astronomicalNights,
+  DEFAULT_MOON_DISTANCE_DEG,
+  intersectIntervals,
+  intervalsAboveAltitude,
+  moonSeparationDeg,
+  sunAltitudeAtDeg,
+  targetAltitudeAndAirmass,
+  targetAltitudeDeg,
+  type IntervalOptions,
+  type TimeInterval,
+} from "./schedule";
