@@ -1,6 +1,6 @@
 import { Badge } from "@/components/ui/badge";
 import type { CandidateRevisionSummary } from "@/lib/data/candidate-detail";
-import type { HeadlineChange } from "@/lib/feed/headline";
+import type { HeadlineChange } from "@/lib/data/headline";
 import { classLabels } from "@/lib/format/classes";
 import { formatFalseAlarmRate } from "@/lib/format/far";
 import { formatInZone, isoUtc } from "@/lib/format/time";

@@ -13,7 +13,7 @@ import {
   type TaskState,
   type TriageState,
 } from "@/db/schema";
-import { diffHeadlines, headlineFromDerived, type HeadlineChange, type RevisionHeadline } from "@/lib/feed/headline";
+import { diffHeadlines, headlineFromDerived, type HeadlineChange, type RevisionHeadline } from "./headline";
 import { loadPeople, type PersonRef } from "./candidates";
 
 export type { PersonRef } from "./candidates";

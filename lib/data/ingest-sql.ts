@@ -5,8 +5,7 @@
  * Anything else (revisions of a known candidate, withdrawals, paging) goes through Drizzle.
  */
 import type { InStatement } from "@libsql/client";
-import type { DerivedHeadline } from "@/lib/feed/headline";
-import { revisionHeadline } from "@/lib/feed/physics-input";
+import { revisionHeadline, type DerivedHeadline } from "./headline";
 import type { FeedCandidate } from "@/lib/validations/feed";
 
 /**

@@ -1,8 +1,57 @@
 import { sql, type SQL } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
-import { factsOf, type Stamp } from "@/lib/review/facts";
-import type { ShiftInfo } from "@/lib/review/groups";
-import type { CandidateFacts, DecisionState } from "@/lib/review/timeline";
+
+/** The triage states that count as a decision. */
+export type DecisionState = "pursue" | "dismissed" | "expert";
+
+/** A first occurrence in the audit log: when, and who. */
+export interface Stamp {
+  atMs: number;
+  actorId: string | null;
+}
+
+/** A candidate's own columns, as both the review query row and the timeline facts carry them (times in Unix ms). */
+export interface CandidateColumns {
+  id: string;
+  source: string;
+  externalId: string;
+  stage: string;
+  dominantClass: string | null;
+  triageState: string;
+  ownerId: string | null;
+  eventTimeMs: number;
+  receivedAtMs: number;
+  withdrawnAtMs: number | null;
+}
+
+/** One row of the review's query (times in Unix ms): the candidate's columns and its first milestones in the log. */
+export interface CandidateMilestones extends CandidateColumns {
+  acknowledgedAtMs: number | null;
+  acknowledgedById: string | null;
+  decidedAtMs: number | null;
+  /** first page (or escalated page) sent by push or e-mail, from the outbox */
+  firstPageAtMs: number | null;
+  /** first triage move out of "new" */
+  leftNew: Stamp | null;
+  /** first move into pursue / dismissed / expert */
+  firstDecision: (Stamp & { state: DecisionState }) | null;
+  firstPursueAtMs: number | null;
+  /** first task.state-changed to "claimed" of any of its (counted) tasks */
+  firstClaim: Stamp | null;
+  /** first task.reported of any of its (counted) tasks */
+  firstReport: Stamp | null;
+  taskCount: number;
+  cancelledTaskCount: number;
+}
+
+/** A shift with the names of its primary and backup. */
+export interface ShiftInfo {
+  id: string;
+  startsAtMs: number;
+  endsAtMs: number;
+  primaryName: string;
+  backupName: string | null;
+}
 
 export interface ReviewFilters {
   fromMs: number;
@@ -77,15 +126,15 @@ function parseStamp(v: Cell | undefined): (Stamp & { state: string }) | null {
   return { atMs: Number(at), actorId: actor || null, state: state ?? "" };
 }
 
-/** Per-candidate facts for the review, from the one query above. */
-export async function loadCandidateFacts(f: ReviewFilters, nowMs: number, q?: Tx): Promise<CandidateFacts[]> {
+/** Per-candidate milestones for the review, from the one query above (lib/review/facts.ts reduces them to facts). */
+export async function loadCandidateMilestones(f: ReviewFilters, nowMs: number, q?: Tx): Promise<CandidateMilestones[]> {
   const db = q ?? (await getDb());
   const [row] = await db.all<{ j: string | null }>(reviewQueries.candidates(f, nowMs));
   const rows = row?.j ? (JSON.parse(row.j) as Cell[][]) : [];
   return rows.map((r) => {
     const decision = parseStamp(r[15]);
     const tasks = String(r[19] ?? "0|0").split("|");
-    return factsOf({
+    return {
       id: String(r[0]),
       source: String(r[1]),
       externalId: String(r[2]),
@@ -107,7 +156,7 @@ export async function loadCandidateFacts(f: ReviewFilters, nowMs: number, q?: Tx
       firstReport: parseStamp(r[18]),
       taskCount: Number(tasks[0] ?? 0),
       cancelledTaskCount: Number(tasks[1] ?? 0),
-    });
+    };
   });
 }
 

@@ -1,5 +1,5 @@
 import type { PhysicsSettings, TriggerPhysicsInput } from "@/lib/physics";
-import type { DerivedHeadline } from "./headline";
+import type { DerivedHeadline } from "@/lib/data/headline";
 
 export interface DeriveJob {
   id: number;

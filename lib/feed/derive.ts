@@ -1,6 +1,6 @@
 import { computeDerived, type PhysicsSettings, type TriggerPhysicsInput } from "@/lib/physics";
 import type { DerivedForFeed } from "./derive-messages";
-import { headlineFromDerived } from "./headline";
+import { headlineFromDerived } from "@/lib/data/headline";
 
 /** computeDerived plus what the feed stores beside it; the same on a physics thread and inline. */
 export function deriveForFeed(input: TriggerPhysicsInput, settings: PhysicsSettings, seed: string): DerivedForFeed {

@@ -1,6 +1,5 @@
 import type { TriggerPhysicsInput } from "@/lib/physics";
 import type { FeedCandidate } from "@/lib/validations/feed";
-import type { RevisionHeadline, DerivedHeadline } from "./headline";
 
 /** The seed that makes a revision's sampled quantities reproducible: the same post always derives the same numbers. */
 export function derivationSeed(payload: Pick<FeedCandidate, "source" | "externalId" | "revision">): string {
@@ -18,17 +17,5 @@ export function toPhysicsInput(payload: FeedCandidate, receivedAt: Date): Trigge
     secondsSinceEventTimeAtReceipt: (receivedAt.getTime() - Date.parse(payload.eventTime)) / 1000,
     networkSnr: payload.networkSnr,
     falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
-  };
-}
-
-export function revisionHeadline(payload: FeedCandidate, derived: DerivedHeadline): RevisionHeadline {
-  return {
-    stage: payload.stage,
-    eventTime: new Date(payload.eventTime).toISOString(),
-    networkSnr: payload.networkSnr,
-    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
-    detectors: payload.detectors,
-    chirpMassDetectorFrame: derived.chirpMassDetectorFrame,
-    dominantClass: derived.dominantClass,
   };
 }

@@ -1,30 +1,8 @@
-import type { CandidateColumns, CandidateFacts, DecisionState } from "./timeline";
+import { loadCandidateMilestones, type CandidateMilestones, type DecisionState, type ReviewFilters, type Stamp } from "@/lib/data/review";
+import type { Tx } from "@/db";
+import type { CandidateFacts } from "./timeline";
 
-/** A first occurrence in the audit log: when, and who. */
-export interface Stamp {
-  atMs: number;
-  actorId: string | null;
-}
-
-/** One row of the review's query (times in Unix ms): the candidate's columns and its first milestones in the log. */
-export interface CandidateMilestones extends CandidateColumns {
-  acknowledgedAtMs: number | null;
-  acknowledgedById: string | null;
-  decidedAtMs: number | null;
-  /** first page (or escalated page) sent by push or e-mail, from the outbox */
-  firstPageAtMs: number | null;
-  /** first triage move out of "new" */
-  leftNew: Stamp | null;
-  /** first move into pursue / dismissed / expert */
-  firstDecision: (Stamp & { state: DecisionState }) | null;
-  firstPursueAtMs: number | null;
-  /** first task.state-changed to "claimed" of any of its (counted) tasks */
-  firstClaim: Stamp | null;
-  /** first task.reported of any of its (counted) tasks */
-  firstReport: Stamp | null;
-  taskCount: number;
-  cancelledTaskCount: number;
-}
+export type { CandidateMilestones, Stamp } from "@/lib/data/review";
 
 const decisions: readonly string[] = ["pursue", "dismissed", "expert"];
 const earlier = (a: Stamp | null, b: Stamp | null): Stamp | null => (a === null ? b : b === null || a.atMs <= b.atMs ? a : b);
@@ -74,4 +52,9 @@ export function factsOf(m: CandidateMilestones): CandidateFacts {
 /** Did this person finish any step of the candidate, or own it? (the review's person filter) */
 export function involves(f: CandidateFacts, personId: string): boolean {
   return [f.ownerId, f.acknowledgedById, f.decidedById, f.claimedById, f.reportedById].includes(personId);
+}
+
+/** Per-candidate facts for the review: storage's milestones, reduced. */
+export async function loadCandidateFacts(f: ReviewFilters, nowMs: number, q?: Tx): Promise<CandidateFacts[]> {
+  return (await loadCandidateMilestones(f, nowMs, q)).map(factsOf);
 }

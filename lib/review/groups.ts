@@ -1,14 +1,9 @@
+import type { ShiftInfo } from "@/lib/data/review";
 import type { CandidateReview } from "./evaluate";
 import { stepIds, type StepId } from "./steps";
 import { FiguresAccumulator, summariseSteps, type StepFigures } from "./summary";
 
-export interface ShiftInfo {
-  id: string;
-  startsAtMs: number;
-  endsAtMs: number;
-  primaryName: string;
-  backupName: string | null;
-}
+export type { ShiftInfo } from "@/lib/data/review";
 
 export interface ShiftRow extends ShiftInfo {
   candidates: number;

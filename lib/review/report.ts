@@ -1,8 +1,8 @@
 import { getSetting, type SettingValue } from "@/lib/data/settings";
-import { loadCandidateFacts, loadPeople, loadShift, loadShifts, type ReviewFilters } from "@/lib/data/review";
+import { loadPeople, loadShift, loadShifts, type ReviewFilters } from "@/lib/data/review";
 import type { Tx } from "@/db";
 import { reviewCandidates, type CandidateReview } from "./evaluate";
-import { involves } from "./facts";
+import { involves, loadCandidateFacts } from "./facts";
 import { personRows, shiftRows, type PersonRow, type ShiftRow } from "./groups";
 import { histogramOf, type HistogramBin } from "./histogram";
 import { stepDeadlinesMs, stepIds, type StepId } from "./steps";

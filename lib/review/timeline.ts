@@ -1,25 +1,12 @@
 import type { StepId } from "./steps";
+import type { CandidateColumns, DecisionState } from "@/lib/data/review";
 
-export type DecisionState = "pursue" | "dismissed" | "expert";
+export type { CandidateColumns, DecisionState } from "@/lib/data/review";
 
 /**
  * What the audit log, the candidates table and the outbox say about one candidate, reduced to first times
- * (Unix ms). Built by lib/data/review.ts from a few range queries; everything here is pure.
+ * (Unix ms). Built from lib/data/review.ts's one query by facts.ts; everything here is pure.
  */
-/** A candidate's own columns, as both the review query row and the timeline facts carry them (times in Unix ms). */
-export interface CandidateColumns {
-  id: string;
-  source: string;
-  externalId: string;
-  stage: string;
-  dominantClass: string | null;
-  triageState: string;
-  ownerId: string | null;
-  eventTimeMs: number;
-  receivedAtMs: number;
-  withdrawnAtMs: number | null;
-}
-
 export interface CandidateFacts extends CandidateColumns {
   firstPageAtMs: number | null;
   /** the first move out of "new" (an acknowledgement, or a decision taken straight from new) */

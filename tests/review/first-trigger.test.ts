@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { loadCandidateFacts } from "@/lib/data/review";
+import { loadCandidateFacts } from "@/lib/review/facts";
 import { transitionCandidate } from "@/lib/services/move-card";
 import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { setNotifyClock } from "@/lib/notify/clock";

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { loadCandidateFacts } from "@/lib/data/review";
+import { loadCandidateFacts } from "@/lib/review/facts";
 import { reviewCandidates, type CandidateReview } from "@/lib/review/evaluate";
 import { stepDeadlinesMs } from "@/lib/review/steps";
 import { settingSchemas } from "@/lib/data/settings";

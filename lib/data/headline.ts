@@ -1,4 +1,10 @@
 import { sourceClasses, type SourceClass, type Stage } from "@/db/schema/candidates";
+import type { FeedCandidate } from "@/lib/validations/feed";
+
+/*
+ * The headline columns of a candidate and its revisions: how a derived result and a feed post map onto them,
+ * and how two revisions' headlines differ. Pure, and kept beside storage because storage writes and reads them.
+ */
 
 /** The numbers the physics module derived that lists sort and filter by (copied into columns). */
 export interface DerivedHeadline {
@@ -83,4 +89,16 @@ export function diffHeadlines(from: RevisionHeadline, to: RevisionHeadline): Hea
     if (!same) changes.push({ field: key, from: a, to: b });
   }
   return changes;
+}
+
+export function revisionHeadline(payload: FeedCandidate, derived: DerivedHeadline): RevisionHeadline {
+  return {
+    stage: payload.stage,
+    eventTime: new Date(payload.eventTime).toISOString(),
+    networkSnr: payload.networkSnr,
+    falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
+    detectors: payload.detectors,
+    chirpMassDetectorFrame: derived.chirpMassDetectorFrame,
+    dominantClass: derived.dominantClass,
+  };
 }
