@@ -7,8 +7,12 @@ import type { V3 } from "./healpix";
  * without computing their centres; only the two pixels at each end of a run are tested exactly.
  * Any radius works, up to the whole sphere. (@hscmap/healpix's query_disc computes every candidate's
  * centre and stops at 90°, which was too slow for wide cones on nside-512 maps.)
+ * `visit` also receives the pixel centre's z and φ (radians), which the ring walk has at hand, so a caller
+ * testing a tighter shape inside the disc need not recompute the centre.
  */
-export function forEachPixelInDisc(nside: number, centre: V3, cosRadius: number, visit: (ringPix: number) => void): void {
+export type DiscVisitor = (ringPix: number, z: number, phiRad: number) => void;
+
+export function forEachPixelInDisc(nside: number, centre: V3, cosRadius: number, visit: DiscVisitor): void {
   const [cx, cy, z0] = centre;
   const s0 = Math.hypot(cx, cy);
   const phi0 = Math.atan2(cy, cx);
@@ -39,26 +43,26 @@ export function forEachPixelInDisc(nside: number, centre: V3, cosRadius: number,
     const inside = (j: number) => z0 * z + s0 * s * Math.cos((j + phase) * step - phi0) >= cosRadius;
 
     if (s0 * s === 0) {
-      if (z0 * z >= cosRadius) for (let j = 0; j < count; j++) visit(start + j);
+      if (z0 * z >= cosRadius) for (let j = 0; j < count; j++) visit(start + j, z, (j + phase) * step);
       continue;
     }
     const x = (cosRadius - z0 * z) / (s0 * s);
     if (x > 1) continue;
     if (x <= -1) {
-      for (let j = 0; j < count; j++) visit(start + j);
+      for (let j = 0; j < count; j++) visit(start + j, z, (j + phase) * step);
       continue;
     }
     const halfWidth = Math.acos(x);
     const lo = Math.ceil((phi0 - halfWidth) / step - phase);
     const hi = Math.floor((phi0 + halfWidth) / step - phase);
     if (hi - lo + 3 >= count) {
-      for (let j = 0; j < count; j++) if (inside(j)) visit(start + j);
+      for (let j = 0; j < count; j++) if (inside(j)) visit(start + j, z, (j + phase) * step);
       continue;
     }
     // pixels strictly between lo and hi are inside by a margin of a whole step; test the ends exactly
     for (let j = lo - 1; j <= hi + 1; j++) {
       const interior = j > lo && j < hi;
-      if (interior || inside(j)) visit(start + (((j % count) + count) % count));
+      if (interior || inside(j)) visit(start + (((j % count) + count) % count), z, (j + phase) * step);
     }
   }
 }

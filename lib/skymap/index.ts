@@ -23,6 +23,8 @@ export {
 } from "./display-grid";
 export { SkymapError, type SkymapErrorCode } from "./errors";
 export { DEFAULT_MAX_FITS_BYTES } from "./fits";
+export { footprintOutline, localEastNorth, placeFootprint, type Footprint, type PlacedFootprint } from "./footprint";
+export { footprintPixels, footprintProbability } from "./footprint-pixels";
 export { loadSkymap, type LoadedSkymap } from "./load";
 export { pixelLocator, type PixelLocator } from "./pixel-at";
 export { credibleRegionPoints, type RegionPointsOptions } from "./region";
