@@ -10,10 +10,15 @@ import { StageBadge } from "@/components/candidate/stage-badge";
 import { Avatar } from "@/components/ui/avatar";
 import { cn } from "@/components/ui/cn";
 import type { BoardCard, BoardData } from "@/lib/data/candidates";
+import { chirpStatus, chirpStatusSentence, chirpStatusShort, type ChirpModel } from "@/lib/format/chirp-status";
 import { formatFalseAlarmRate, formatFalseAlarmRateExact } from "@/lib/format/far";
+import { formatPercent } from "@/lib/format/numbers";
 import { formatClock, formatInZone, isoUtc } from "@/lib/format/time";
 import { formatWithUncertainty, SOLAR_MASS_UNIT } from "@/lib/format/uncertainty";
 import { AckTimer, Age, MergerCountdown } from "./card-timers";
+
+/** Short model tags for the card; the title and the candidate page spell them out. */
+const modelTags: Record<ChirpModel, string> = { "pn-3.5": "3.5PN", "leading-order": "LO" };
 
 interface CardProps {
   card: BoardCard;
@@ -24,6 +29,12 @@ interface CardProps {
 
 /** What a card shows; memoised so a drag (which re-renders every draggable) does not redraw 500 card bodies. */
 export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, timeZone, onActions }: CardProps) {
+  const status = chirpStatus({
+    fitted: card.chirpMassDetectorFrame !== null,
+    chirpMassError: card.chirpMassError,
+    model: card.chirpModel,
+    reducedChiSquare: card.chirpReducedChiSquare,
+  });
   return (
     <div className="min-w-0 flex-1 space-y-1.5">
       <div className="flex items-center gap-1.5">
@@ -66,14 +77,29 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
           {/* The unit may wrap on its own line in a narrow column; the number never breaks. */}
           <dd className="flex min-w-0 flex-wrap items-baseline gap-x-1 tabular-nums leading-tight">
             {card.chirpMassDetectorFrame === null ? (
-              "not fitted"
+              <span className={status.kind === "not-fitted" ? "" : "text-warn"} data-testid="card-chirp-status" title={chirpStatusSentence(status) ?? undefined}>
+                {chirpStatusShort(status)}
+              </span>
             ) : (
               <>
                 <span className="whitespace-nowrap">{formatWithUncertainty(card.chirpMassDetectorFrame, card.chirpMassDetectorFrameSd)}</span>
                 <span className="text-faint">{SOLAR_MASS_UNIT}</span>
+                <span
+                  className={status.kind === "fitted" && status.poorFit ? "text-warn" : "text-faint"}
+                  data-testid="card-chirp-status"
+                  title={status.kind === "fitted" && status.poorFit ? status.poorFit : `Fitted with the ${chirpStatusShort(status)}`}
+                >
+                  {status.kind === "fitted" && status.poorFit ? "poor fit" : status.kind === "fitted" && status.model ? modelTags[status.model] : null}
+                </span>
               </>
             )}
           </dd>
+        </div>
+        <div className="flex gap-1.5">
+          <dt className="shrink-0 text-faint" title="Probability of astrophysical origin">
+            p-astro
+          </dt>
+          <dd className="tabular-nums">{card.pAstro === null ? "—" : formatPercent(card.pAstro)}</dd>
         </div>
         <div className="flex gap-1.5">
           <dt className="shrink-0 text-faint">FAR</dt>

@@ -1,7 +1,7 @@
 import { TriangleAlert } from "lucide-react";
 
 export const CAUTION_TEXT =
-  "Rapid leading-order estimates for triage. Official parameter estimates and local observatory safety rules take precedence.";
+  "Rapid estimates for triage, not parameter estimation. Official parameter estimates and local observatory safety rules take precedence.";
 
 /** The caution every derived number carries, shown where those numbers are read closely. */
 export function Caution() {

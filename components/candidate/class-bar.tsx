@@ -23,24 +23,3 @@ export function ClassBar({ p, className }: { p: ClassProbabilityMap | null; clas
     </div>
   );
 }
-
-/** The full breakdown for the candidate page: a row per class with its bar and number. */
-export function ClassTable({ p }: { p: ClassProbabilityMap | null }) {
-  if (!p) return <p className="text-sm text-muted">Class probabilities could not be computed for this revision.</p>;
-  return (
-    <ul className="space-y-1.5">
-      {order.map((c) => (
-        <li key={c} className="grid grid-cols-[minmax(0,8.5rem)_1fr_4.75rem] items-center gap-2 text-sm">
-          <span className="flex items-center gap-1.5">
-            <span aria-hidden className={cn("h-2.5 w-2.5 rounded-sm", classColourClasses[c])} />
-            {classLongLabels[c]}
-          </span>
-          <span className="h-2 overflow-hidden rounded-sm bg-sunken" aria-hidden>
-            <span className={cn("block h-full", classColourClasses[c])} style={{ width: `${p[c] * 100}%` }} />
-          </span>
-          <span className="whitespace-nowrap text-right font-mono tabular-nums">{formatPercent(p[c])}</span>
-        </li>
-      ))}
-    </ul>
-  );
-}

@@ -49,6 +49,12 @@ export interface BoardCard {
   classes: Record<SourceClass, number> | null;
   /** fitted coalescence time, seconds after eventTime (early warnings count down to it) */
   coalescenceTimeS: number | null;
+  /** probability of astrophysical origin (derived.astroProbability.pAstro) */
+  pAstro: number | null;
+  /** the chirp fit's model, its reduced χ² and why there is no chirp mass (read into words by lib/format/chirp-status) */
+  chirpModel: string | null;
+  chirpReducedChiSquare: number | null;
+  chirpMassError: string | null;
   liveTaskCount: number;
   /** how many pipelines' triggers this candidate groups */
   triggerCount: number;
@@ -67,7 +73,8 @@ export const BOARD_WINDOW_DAYS = 14;
 const BOARD_LIMIT = 2000;
 
 const liveTasks = sql<number>`(select count(*) from ${followUpTasks} where ${followUpTasks.candidateId} = ${candidates.id} and ${followUpTasks.state} in ('open', 'claimed', 'observing'))`;
-const coalescence = sql<number | null>`json_extract(${derivedQuantities.derived}, '$.coalescenceTime')`;
+const derivedField = <T>(path: string) => sql<T | null>`json_extract(${derivedQuantities.derived}, ${path})`;
+const coalescence = derivedField<number>("$.coalescenceTime");
 
 /** Every card of the triage board in one query (current revision's derived numbers joined), newest first. */
 export async function getBoard(now: Date = new Date()): Promise<BoardData> {
@@ -84,6 +91,10 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
         pBbh: derivedQuantities.pBbh,
         pLowerGap: derivedQuantities.pLowerGap,
         coalescence,
+        pAstro: derivedField<number>("$.astroProbability.pAstro"),
+        chirpModel: derivedField<string>("$.fit.model"),
+        chirpChi: derivedField<number>("$.fit.reducedChiSquare"),
+        chirpMassError: derivedField<string>("$.chirpMassError"),
         liveTasks,
       })
       .from(candidates)
@@ -103,7 +114,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
       .limit(BOARD_LIMIT),
     getSetting("deadlines"),
   ]);
-  const cards = rows.map(({ c, owner, sd, pBns, pNsbh, pBbh, pLowerGap, coalescence: tc, liveTasks: n }): BoardCard => ({
+  const cards = rows.map(({ c, owner, sd, pBns, pNsbh, pBbh, pLowerGap, coalescence: tc, pAstro, chirpModel, chirpChi, chirpMassError, liveTasks: n }): BoardCard => ({
     id: c.id,
     externalId: c.externalId,
     source: c.source,
@@ -127,6 +138,10 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
         ? null
         : { bns: pBns, nsbh: pNsbh, bbh: pBbh, lowerGap: pLowerGap },
     coalescenceTimeS: typeof tc === "number" ? tc : null,
+    pAstro: typeof pAstro === "number" ? pAstro : null,
+    chirpModel: typeof chirpModel === "string" ? chirpModel : null,
+    chirpReducedChiSquare: typeof chirpChi === "number" ? chirpChi : null,
+    chirpMassError: typeof chirpMassError === "string" ? chirpMassError : null,
     liveTaskCount: Number(n ?? 0),
     triggerCount: c.triggerCount,
   }));

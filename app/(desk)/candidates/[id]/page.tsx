@@ -6,11 +6,12 @@ import { AuditLog } from "@/components/candidate/audit-log";
 import { CandidateLiveRefresh } from "@/components/candidate/candidate-live-refresh";
 import { CandidateTriagePanel } from "@/components/candidate/candidate-triage-panel";
 import { Caution } from "@/components/candidate/caution";
-import { ClassTable } from "@/components/candidate/class-bar";
-import { KeyNumbers, MergerFrequencyTable } from "@/components/candidate/key-numbers";
+import { KeyNumbers } from "@/components/candidate/key-numbers";
+import { MergerPanel } from "@/components/candidate/merger-panel";
 import { NotesThread } from "@/components/candidate/notes-thread";
 import { RevisionTimeline } from "@/components/candidate/revision-timeline";
 import { SkymapSlot } from "@/components/candidate/skymap-slot";
+import { SourceClassPanel } from "@/components/candidate/source-class-panel";
 import { StageBadge } from "@/components/candidate/stage-badge";
 import { TasksPanel } from "@/components/candidate/tasks-panel";
 import { trackSeries } from "@/components/candidate/track-data";
@@ -151,11 +152,11 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
           </Panel>
           <Panel>
             <PanelTitle>Source class</PanelTitle>
-            <ClassTable p={derived.classProbabilities ?? null} />
+            <SourceClassPanel derived={derived} />
           </Panel>
           <Panel>
             <PanelTitle>Merger and ringdown</PanelTitle>
-            <MergerFrequencyTable derived={derived} />
+            <MergerPanel derived={derived} />
           </Panel>
           <Panel>
             <PanelTitle>Follow-up tasks</PanelTitle>
