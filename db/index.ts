@@ -1,4 +1,4 @@
-import { getDatabaseUrl } from "@/lib/env";
+import { config } from "@/lib/env";
 import { openDatabase, type Database } from "./client";
 
 export type { Database } from "./client";
@@ -15,10 +15,10 @@ const globalForDb = globalThis as unknown as { chirpdeskDb?: DbCache };
 
 /** The process's database, opened on first use from DATABASE_URL. */
 export function getDb(): Promise<Database> {
-  const url = getDatabaseUrl();
+  const { DATABASE_URL: url, DATABASE_AUTH_TOKEN: authToken } = config();
   const cached = globalForDb.chirpdeskDb;
   if (cached && cached.url === url) return cached.db;
-  const db = openDatabase(url, process.env.DATABASE_AUTH_TOKEN || undefined);
+  const db = openDatabase(url, authToken);
   globalForDb.chirpdeskDb = { url, db };
   db.catch(() => {
     if (globalForDb.chirpdeskDb?.db === db) globalForDb.chirpdeskDb = undefined;

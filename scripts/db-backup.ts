@@ -3,13 +3,13 @@
 // workers write.
 import { parseArgs } from "node:util";
 import { backupDatabase } from "@/db/backup";
-import { getDatabaseUrl } from "@/lib/env";
+import { config } from "@/lib/env";
 import { loadEnvFile } from "./ensure-env";
 
 loadEnvFile();
 const { values } = parseArgs({ options: { out: { type: "string", default: "./backups" } } });
 try {
-  const result = await backupDatabase(getDatabaseUrl(), process.env.UPLOAD_DIR || "./data/uploads", values.out ?? "./backups");
+  const result = await backupDatabase(config().DATABASE_URL, config().UPLOAD_DIR, values.out ?? "./backups");
   console.log(`backed up to ${result.databaseFile} (${result.bytes} bytes)${result.uploadsDir ? `, uploads to ${result.uploadsDir}` : ", no uploads"}`);
 } catch (error) {
   console.error(`db:backup: ${(error as Error).message}`);

@@ -3,7 +3,7 @@
 import { closeDb, getDb } from "@/db";
 import { restoreDatabase } from "@/db/backup";
 import { migrateDatabase } from "@/db/migrate";
-import { getDatabaseUrl } from "@/lib/env";
+import { config } from "@/lib/env";
 import { loadEnvFile } from "./ensure-env";
 
 loadEnvFile();
@@ -13,7 +13,7 @@ if (!file) {
   process.exit(1);
 }
 try {
-  const result = restoreDatabase(file, getDatabaseUrl(), process.env.UPLOAD_DIR || "./data/uploads");
+  const result = restoreDatabase(file, config().DATABASE_URL, config().UPLOAD_DIR);
   await migrateDatabase(await getDb());
   await closeDb();
   console.log(`restored ${file} to ${result.databaseFile}${result.uploads ? " with its uploads" : ""}; migrations applied`);

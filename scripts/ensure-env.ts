@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import webpush from "web-push";
+import { defaultDatabaseUrl } from "@/lib/env";
 
 /**
  * Writes `.env.local` with freshly generated secrets when it is absent, and adds any key a newer version needs.
@@ -11,7 +12,7 @@ export function ensureEnvFile(file = ".env.local", port = Number(process.env.POR
   const vapid = existing.VAPID_PUBLIC_KEY ? null : webpush.generateVAPIDKeys();
   const secret = () => randomBytes(32).toString("base64url");
   const wanted: Record<string, string> = {
-    DATABASE_URL: "file:./data/chirpdesk.db",
+    DATABASE_URL: defaultDatabaseUrl,
     NEXTAUTH_URL: `http://localhost:${port}`,
     NEXTAUTH_SECRET: secret(),
     FEED_SIGNING_SECRET: secret(),

@@ -1,12 +1,14 @@
 import { closeDb, getDb } from "@/db";
 import { migrateDatabase } from "@/db/migrate";
+import { config } from "@/lib/env";
 import { seedDemo } from "@/scripts/demo/demo";
 import { demoPeople } from "@/scripts/demo/scenario";
 import { loadEnvFile } from "./ensure-env";
 
 /** Migrates, then seeds the demo scenario when the database is empty. Refuses in production unless SEED_DEMO=1. */
 export async function runSeed(): Promise<void> {
-  if (process.env.NODE_ENV === "production" && process.env.SEED_DEMO !== "1") {
+  const { NODE_ENV, SEED_DEMO } = config();
+  if (NODE_ENV === "production" && SEED_DEMO !== "1") {
     console.log("production mode: no demo data (set SEED_DEMO=1 to seed an empty database)");
     return;
   }

@@ -1,7 +1,7 @@
 import concurrently, { type ConcurrentlyCommandInput } from "concurrently";
 import { closeDb, getDb } from "@/db";
 import { migrateDatabase } from "@/db/migrate";
-import { getEnv } from "@/lib/env";
+import { config, servingProblems } from "@/lib/env";
 import { runSeed } from "./seed";
 
 /**
@@ -10,19 +10,18 @@ import { runSeed } from "./seed";
  * One paging worker starts beside the server unless START_WORKER=0 (several may run at once).
  */
 Object.assign(process.env, { NODE_ENV: "production" });
-try {
-  getEnv();
-} catch (error) {
-  console.error((error as Error).message);
+const problems = servingProblems(process.env);
+if (problems.length > 0) {
+  console.error(`Chirpdesk cannot start; fix these variables:\n${problems.map((line) => `  ${line}`).join("\n")}\nSee README.md, "Configuration".`);
   process.exit(1);
 }
 await migrateDatabase(await getDb());
 await runSeed();
 await closeDb();
 
-const port = Number(process.env.PORT ?? 3000);
+const { PORT: port, START_WORKER } = config();
 const commands: ConcurrentlyCommandInput[] = [{ name: "app", command: `node --import ./server/peer-address.mjs node_modules/next/dist/bin/next start -p ${port}` }];
-if (process.env.START_WORKER !== "0") commands.push({ name: "worker", command: "tsx scripts/worker.ts" });
+if (START_WORKER !== "0") commands.push({ name: "worker", command: "tsx scripts/worker.ts" });
 const { result } = concurrently(commands, { killOthersOn: ["failure", "success"], prefix: "name" });
 result.then(
   () => process.exit(0),

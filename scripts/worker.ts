@@ -3,24 +3,18 @@
 // WORKER_CONCURRENCY (sends in flight), WORKER_ID.
 import { closeDb } from "@/db";
 import { loadEnvFile } from "./ensure-env";
+import { config } from "@/lib/env";
 import { createWorker } from "@/lib/notify/worker";
 
 loadEnvFile();
 
-function positive(name: string): number | undefined {
-  const raw = process.env[name];
-  if (raw === undefined || raw === "") return undefined;
-  const value = Number(raw);
-  if (!Number.isFinite(value) || value <= 0) throw new Error(`${name}=${raw} must be a positive number`);
-  return value;
-}
-
+const settings = config();
 const worker = createWorker({
-  workerId: process.env.WORKER_ID || undefined,
-  pollMs: positive("WORKER_POLL_MS"),
-  leaseMs: positive("WORKER_LEASE_MS"),
-  batchSize: positive("WORKER_BATCH"),
-  concurrency: positive("WORKER_CONCURRENCY"),
+  workerId: settings.WORKER_ID,
+  pollMs: settings.WORKER_POLL_MS,
+  leaseMs: settings.WORKER_LEASE_MS,
+  batchSize: settings.WORKER_BATCH,
+  concurrency: settings.WORKER_CONCURRENCY,
 });
 worker.start();
 console.log(`paging worker ${worker.workerId} running`);

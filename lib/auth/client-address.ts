@@ -35,7 +35,7 @@ function isTrusted(list: BlockList, address: string): boolean {
  * or a handler called in a test) the only address is Next's X-Forwarded-For, which a client can set: "unknown:" +
  * that value keeps such clients apart from stamped ones and is logged once by the caller.
  */
-export function clientAddress(headers: Headers, trusted: BlockList, peerStamped = !!process.env.CHIRPDESK_PEER_HEADER): string {
+export function clientAddress(headers: Headers, trusted: BlockList, peerStamped: boolean): string {
   const peer = peerStamped ? normalise(headers.get(PEER_HEADER) ?? "") : "";
   const hops = (headers.get("x-forwarded-for") ?? "").split(",").map(normalise).filter(Boolean);
   if (!peer) return `unknown:${hops.at(-1) ?? "none"}`;

@@ -3,7 +3,7 @@ import type { BlockList } from "node:net";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { users } from "@/db/schema";
-import { getEnv } from "@/lib/env";
+import { config } from "@/lib/env";
 import { clientAddress, parseTrustedProxies } from "./client-address";
 import { hashPassword, verifyPassword } from "./password";
 import { clearAccountFailures, recordFailedSignIn, signInRetryAfterSeconds } from "./rate-limit";
@@ -18,10 +18,11 @@ let warnedUnstamped = false;
 
 /** The caller's address for the sign-in limits, from TRUSTED_PROXIES (parsed once) and the socket stamp. */
 export function signInAddress(headers: Headers): string {
-  const text = getEnv().TRUSTED_PROXIES;
+  const settings = config();
+  const text = settings.TRUSTED_PROXIES;
   if (!trusted || trusted.text !== text) trusted = { text, list: parseTrustedProxies(text) };
-  const address = clientAddress(headers, trusted.list);
-  if (address.startsWith("unknown:") && !warnedUnstamped && process.env.NODE_ENV === "production") {
+  const address = clientAddress(headers, trusted.list, !!settings.CHIRPDESK_PEER_HEADER);
+  if (address.startsWith("unknown:") && !warnedUnstamped && settings.NODE_ENV === "production") {
     warnedUnstamped = true;
     console.warn("[chirpdesk] the server was started without server/peer-address.mjs; sign-in limits cannot see client addresses");
   }

@@ -1,6 +1,6 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { getEnv } from "@/lib/env";
+import { requireSetting } from "@/lib/env";
 import { endSessions, readSessionState } from "@/lib/data/sessions";
 import { checkCredentials, signInAddress } from "./credentials";
 
@@ -14,7 +14,7 @@ class SessionEnded extends Error {}
  */
 export function buildAuthOptions(): NextAuthOptions {
   return {
-    secret: getEnv().NEXTAUTH_SECRET,
+    secret: requireSetting("NEXTAUTH_SECRET"),
     session: { strategy: "jwt", maxAge: 14 * 24 * 3600 },
     pages: { signIn: "/sign-in", error: "/sign-in" },
     logger: {

@@ -9,6 +9,7 @@
  */
 import { availableParallelism } from "node:os";
 import { Worker } from "node:worker_threads";
+import { config, type Config } from "@/lib/env";
 import type { PhysicsSettings, TriggerPhysicsInput } from "@/lib/physics";
 import { deriveForFeed } from "./derive";
 import type { DeriveJob, DeriveJobResult, DerivedForFeed } from "./derive-messages";
@@ -24,12 +25,8 @@ interface Lane {
   answered: boolean;
 }
 
-export function physicsThreadCount(env: Record<string, string | undefined> = process.env): number {
-  const configured = env.PHYSICS_THREADS;
-  if (configured !== undefined && configured.trim() !== "") {
-    const count = Number(configured);
-    return Number.isInteger(count) && count >= 0 ? Math.min(count, 16) : 0;
-  }
+export function physicsThreadCount(settings: Pick<Config, "PHYSICS_THREADS"> = config()): number {
+  if (settings.PHYSICS_THREADS !== undefined) return settings.PHYSICS_THREADS;
   return Math.max(1, Math.min(4, availableParallelism() - 1));
 }
 
@@ -38,7 +35,7 @@ function inline(job: DeriveJob): DerivedForFeed {
 }
 
 function startThread(): Worker {
-  if (!process.env.NEXT_RUNTIME) {
+  if (!config().NEXT_RUNTIME) {
     // Outside Next (tsx scripts, Vitest) the thread loads the TypeScript source through tsx's API.
     const entry = import.meta.url.replace(/derive-pool\.ts$/, "derive-thread.ts");
     const bootstrap = `import("tsx/esm/api").then(({ tsImport }) => tsImport(${JSON.stringify(entry)}, ${JSON.stringify(entry)}))`;

@@ -1,3 +1,5 @@
+import { config, type Config } from "@/lib/env";
+
 /**
  * The detector network's site codes. The network is fictional (Chirpdesk's own demo scenario):
  *   N1 — "Northern array", S1 — "Southern array", E1 — "Equatorial array".
@@ -8,13 +10,8 @@
  */
 export const defaultNetworkSites = ["N1", "S1", "E1"] as const;
 
-/** One to four characters, an uppercase letter first, then uppercase letters or digits. */
-export const detectorCodePattern = /^[A-Z][A-Z0-9]{0,3}$/;
+export { detectorCodePattern } from "./detector-code";
 
-export function networkSiteCodes(env: Record<string, string | undefined> = process.env): string[] {
-  const configured = (env.FEED_NETWORK_SITES ?? "")
-    .split(",")
-    .map((code) => code.trim())
-    .filter((code) => detectorCodePattern.test(code));
-  return configured.length > 0 ? [...new Set(configured)] : [...defaultNetworkSites];
+export function networkSiteCodes(settings: Pick<Config, "FEED_NETWORK_SITES"> = config()): string[] {
+  return settings.FEED_NETWORK_SITES ? [...settings.FEED_NETWORK_SITES] : [...defaultNetworkSites];
 }

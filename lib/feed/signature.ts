@@ -1,4 +1,5 @@
 import { createHmac, timingSafeEqual } from "node:crypto";
+import { config, type Config } from "@/lib/env";
 
 export const timestampHeader = "x-feed-timestamp";
 export const signatureHeader = "x-feed-signature";
@@ -56,8 +57,8 @@ export function verifyFeedSignature(
 }
 
 /** The secret, checked where it is used, so the feed route needs no other variable to run (tests, scripts). */
-export function feedSigningSecret(env: Record<string, string | undefined> = process.env): string {
-  const secret = env.FEED_SIGNING_SECRET ?? "";
-  if (secret.length < 32) throw new Error("FEED_SIGNING_SECRET must be set (at least 32 characters)");
+export function feedSigningSecret(settings: Pick<Config, "FEED_SIGNING_SECRET"> = config()): string {
+  const secret = settings.FEED_SIGNING_SECRET;
+  if (!secret) throw new Error("FEED_SIGNING_SECRET must be set (at least 32 characters)");
   return secret;
 }

@@ -2,6 +2,7 @@ import { createHmac, randomUUID, timingSafeEqual } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { ackTokens } from "@/db/schema";
 import type { Tx } from "@/db";
+import { config, type Config } from "@/lib/env";
 
 /** How long a one-click acknowledge link works. */
 export const ackLinkLifetimeMs = 2 * 60 * 60_000;
@@ -14,9 +15,8 @@ export interface AckClaims {
 }
 
 /** The link secret, or null when unset (then pages go out without an acknowledge link rather than not at all). */
-export function ackLinkSecret(env: Record<string, string | undefined> = process.env): string | null {
-  const secret = env.ACK_LINK_SECRET ?? "";
-  return secret.length >= 32 ? secret : null;
+export function ackLinkSecret(settings: Pick<Config, "ACK_LINK_SECRET"> = config()): string | null {
+  return settings.ACK_LINK_SECRET ?? null;
 }
 
 function mac(secret: string, c: AckClaims): Buffer {

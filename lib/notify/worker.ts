@@ -2,6 +2,7 @@ import { loggableMessage } from "@/db/loggable-error";
 import { randomUUID } from "node:crypto";
 import { hostname } from "node:os";
 import type { Notification } from "@/db/schema";
+import { config, type Config } from "@/lib/env";
 import { defaultBackoff, type BackoffOptions } from "./backoff";
 import { createEmailSender, type EmailSender } from "./channels/email";
 import { createPushSender, type PushSender } from "./channels/push";
@@ -40,8 +41,8 @@ export interface WorkerRun {
   leaseLost: number;
 }
 
-/** Channel senders from the environment (VAPID_*, SMTP_URL, MAIL_FROM); a missing one is null and its rows retry. */
-export function sendersFromEnv(env: Record<string, string | undefined> = process.env): { push: PushSender | null; email: EmailSender | null } {
+/** Channel senders from the configuration (VAPID_*, SMTP_URL, MAIL_FROM); a missing one is null and its rows retry. */
+export function sendersFromConfig(env: Config = config()): { push: PushSender | null; email: EmailSender | null } {
   const push =
     env.VAPID_PUBLIC_KEY && env.VAPID_PRIVATE_KEY && env.VAPID_SUBJECT
       ? createPushSender({ publicKey: env.VAPID_PUBLIC_KEY, privateKey: env.VAPID_PRIVATE_KEY, subject: env.VAPID_SUBJECT })
@@ -70,7 +71,7 @@ export function createWorker(options: WorkerOptions = {}) {
   const pollMs = options.pollMs ?? 100;
   const concurrency = options.concurrency ?? 8;
   const log = options.log ?? ((m: string) => console.log(`[worker ${workerId}] ${m}`));
-  const senders = options.push !== undefined || options.email !== undefined ? { push: options.push ?? null, email: options.email ?? null } : sendersFromEnv();
+  const senders = options.push !== undefined || options.email !== undefined ? { push: options.push ?? null, email: options.email ?? null } : sendersFromConfig();
   let running = false;
   let loop: Promise<void> | null = null;
   let wake: (() => void) | null = null;

@@ -2,6 +2,7 @@ import { createHash, randomUUID } from "node:crypto";
 import { existsSync } from "node:fs";
 import { mkdir, readFile, rename, rm, stat, writeFile } from "node:fs/promises";
 import path from "node:path";
+import { config } from "@/lib/env";
 
 /**
  * A content-addressed file store under UPLOAD_DIR (default ./data/uploads): every file lives at
@@ -19,9 +20,9 @@ export interface StoredFile {
 const SHA256_HEX = /^[0-9a-f]{64}$/;
 const SUFFIX = /^[a-z0-9-]{1,20}$/;
 
-/** The store's root folder, read on each call so tests can point it elsewhere. */
+/** The store's root folder (UPLOAD_DIR), looked up on each call so a test's configuration can point it elsewhere. */
 export function uploadRoot(): string {
-  return path.resolve(/*turbopackIgnore: true*/ process.env.UPLOAD_DIR || "./data/uploads");
+  return path.resolve(/*turbopackIgnore: true*/ config().UPLOAD_DIR);
 }
 
 export function sha256Hex(bytes: Uint8Array): string {

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { stages } from "@/db/schema/candidate-values";
-import { detectorCodePattern } from "@/lib/feed/network";
+import { detectorCodePattern } from "@/lib/feed/detector-code";
 
 /** A track longer than this is refused with 422 after the schema check (the 5 MB body limit comes first). */
 export const maxTrackSamples = 200_000;

@@ -2,6 +2,7 @@ import { Worker } from "node:worker_threads";
 import { afterEach, describe, expect, it } from "vitest";
 import { deriveForFeed } from "@/lib/feed/derive";
 import { DerivePool, physicsThreadCount } from "@/lib/feed/derive-pool";
+import { parseConfig } from "@/lib/env";
 import { derivationSeed, toPhysicsInput } from "@/lib/feed/physics-input";
 import { defaultPhysicsSettings } from "@/lib/physics";
 import { samplePayload } from "./support/feed-helpers";
@@ -60,11 +61,11 @@ describe("the feed's physics threads", () => {
     expect(started).toBe(1);
   });
 
-  it("read PHYSICS_THREADS: a count, 0 for inline, nonsense as inline, unset as CPUs − 1 within 1…4", () => {
-    expect(physicsThreadCount({ PHYSICS_THREADS: "3" })).toBe(3);
-    expect(physicsThreadCount({ PHYSICS_THREADS: "0" })).toBe(0);
-    expect(physicsThreadCount({ PHYSICS_THREADS: "two" })).toBe(0);
-    const fallback = physicsThreadCount({});
+  it("read PHYSICS_THREADS: a count, 0 for inline, nonsense refused by name, unset as CPUs − 1 within 1…4", () => {
+    expect(physicsThreadCount(parseConfig({ PHYSICS_THREADS: "3" }))).toBe(3);
+    expect(physicsThreadCount(parseConfig({ PHYSICS_THREADS: "0" }))).toBe(0);
+    expect(() => parseConfig({ PHYSICS_THREADS: "two" })).toThrow(/PHYSICS_THREADS/);
+    const fallback = physicsThreadCount(parseConfig({}));
     expect(fallback).toBeGreaterThanOrEqual(1);
     expect(fallback).toBeLessThanOrEqual(4);
   });

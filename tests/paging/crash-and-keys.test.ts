@@ -10,7 +10,7 @@ import { createApiToken } from "@/lib/auth/api-tokens";
 import { defaultBackoff } from "@/lib/notify/backoff";
 import { claimDueNotifications, PAGE_LEASE_MS } from "@/lib/notify/claim";
 import { deliver } from "@/lib/notify/deliver";
-import { sendersFromEnv } from "@/lib/notify/worker";
+import { sendersFromConfig } from "@/lib/notify/worker";
 import { startHarness, type Harness } from "./support/harness";
 
 let h: Harness;
@@ -22,7 +22,7 @@ afterAll(() => h.stop());
 describe("a worker killed holding a page", () => {
   it("has its page sent again soon after a short lease, with the same Message-ID so the repeat is visible", async () => {
     const candidate = await h.postCandidate();
-    const senders = sendersFromEnv();
+    const senders = sendersFromConfig();
     const claimedAt = new Date(h.clock.now());
     const rows = (await claimDueNotifications("doomed", claimedAt, 60_000, 50)).filter((r) => r.channel === "email" && r.candidateId === candidate.id);
     expect(rows).toHaveLength(1);

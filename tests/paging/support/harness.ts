@@ -11,9 +11,8 @@ import { putSetting } from "@/lib/data/settings";
 import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { signFeedBody } from "@/lib/feed/signature";
 import { setNotifyClock } from "@/lib/notify/clock";
-import { createWorker, sendersFromEnv, type WorkerOptions } from "@/lib/notify/worker";
+import { createWorker, sendersFromConfig, type WorkerOptions } from "@/lib/notify/worker";
 import { escalationPolicySchema } from "@/lib/validations/paging";
-import { resetEnvCache } from "@/lib/env";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../../helpers/test-db";
 import { pagingPayload } from "@/tests/support/paging-payload";
 
@@ -42,7 +41,6 @@ export async function startHarness(options: { startMs?: number } = {}) {
     FEED_SIGNING_SECRET: feedSecret,
   };
   Object.assign(process.env, env);
-  resetEnvCache();
 
   let nowMs = options.startMs ?? Date.UTC(2031, 2, 4, 12, 0, 0);
   const clock = { now: () => nowMs, set: (ms: number) => void (nowMs = ms), advance: (ms: number) => void (nowMs += ms) };
@@ -100,7 +98,7 @@ export async function startHarness(options: { startMs?: number } = {}) {
     },
 
     worker(options: WorkerOptions = {}) {
-      return createWorker({ now: clock.now, random: () => 0.5, log: () => undefined, ...sendersFromEnv(), ...options });
+      return createWorker({ now: clock.now, random: () => 0.5, log: () => undefined, ...sendersFromConfig(), ...options });
     },
 
     async rows(filter: { userId?: string; channel?: Channel; candidateId?: string } = {}) {

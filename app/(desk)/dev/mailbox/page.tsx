@@ -3,6 +3,7 @@ import { notFound } from "next/navigation";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/auth/session";
+import { config } from "@/lib/env";
 import { MailboxList, type MailboxMessage } from "./mailbox-list";
 
 export const metadata = { title: "Dev mailbox" };
@@ -20,9 +21,9 @@ async function readMailbox(base: string): Promise<MailboxMessage[] | string> {
 
 /** Development only: what the local fake SMTP server received (DEV_MAILBOX_URL). Not found in production. */
 export default async function DevMailboxPage() {
-  if (process.env.NODE_ENV === "production") notFound();
+  const { NODE_ENV, DEV_MAILBOX_URL: base } = config();
+  if (NODE_ENV === "production") notFound();
   const user = await requirePageUser();
-  const base = process.env.DEV_MAILBOX_URL;
   const messages = base ? await readMailbox(base) : "DEV_MAILBOX_URL is not set";
   return (
     <div className="max-w-5xl space-y-4">

@@ -1,6 +1,7 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { latestEventId, listEventsAfter } from "@/lib/data/events";
+import { config } from "@/lib/env";
 import { mayReceive } from "@/lib/events/audience";
 import { createEventStream, resumePoint, toWireEvent } from "@/lib/triage/event-stream";
 
@@ -24,7 +25,7 @@ export const GET = handler({ roles: can.read }, async ({ req, user }) => {
     signal: req.signal,
     readEventsAfter: listEventsAfter,
     visible: (event) => mayReceive(user, event),
-    pollMs: Number(process.env.EVENT_STREAM_POLL_MS) || 750,
+    pollMs: config().EVENT_STREAM_POLL_MS,
   });
   return new Response(stream, {
     headers: {
