@@ -190,3 +190,17 @@ export async function cancelTaskRows(tx: Tx, tasks: Array<Pick<FollowUpTask, "id
     .where(and(unchanged, inArray(followUpTasks.state, unfinishedTaskStates)))
     .returning();
 }
+
+/** Of the given task ids, those of the candidate, with their site's code (what a "new tasks" message lists). */
+export async function tasksWithSiteCodes(
+  tx: Tx,
+  candidateId: string,
+  taskIds: string[],
+): Promise<Array<{ id: string; siteId: string | null; kind: string; siteCode: string | null }>> {
+  if (taskIds.length === 0) return [];
+  return tx
+    .select({ id: followUpTasks.id, siteId: followUpTasks.siteId, kind: followUpTasks.kind, siteCode: sites.code })
+    .from(followUpTasks)
+    .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
+    .where(and(inArray(followUpTasks.id, taskIds), eq(followUpTasks.candidateId, candidateId)));
+}

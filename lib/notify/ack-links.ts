@@ -1,7 +1,7 @@
 import { createHmac, randomUUID, timingSafeEqual } from "node:crypto";
-import { eq } from "drizzle-orm";
-import { ackTokens } from "@/db/schema";
+import type { ackTokens } from "@/db/schema";
 import type { Tx } from "@/db";
+import { readAckToken } from "@/lib/data/outbox";
 import { config, type Config } from "@/lib/env";
 
 /** How long a one-click acknowledge link works. */
@@ -68,7 +68,7 @@ export type AckTokenCheck =
 export async function verifyAckToken(q: Tx, token: string, now: Date, secret: string): Promise<AckTokenCheck> {
   const parsed = parseAckToken(token);
   if (!parsed) return { ok: false, reason: "forged" };
-  const [row] = await q.select().from(ackTokens).where(eq(ackTokens.id, parsed.id)).limit(1);
+  const row = await readAckToken(q, parsed.id);
   if (!row) return { ok: false, reason: "forged" };
   const claims: AckClaims = { id: row.id, candidateId: row.candidateId, userId: row.userId, expiresAtMs: parsed.expiresAtMs };
   const expected = mac(secret, claims);

@@ -1,9 +1,9 @@
-import { and, eq, isNull } from "drizzle-orm";
 import { getDb } from "@/db";
-import { ackTokens, candidates, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { can, hasRole } from "@/lib/auth/roles";
 import { loadSessionUser } from "@/lib/auth/session";
+import { spendAckToken, unspendAckToken } from "@/lib/data/outbox";
+import { candidateWithAcknowledger } from "@/lib/data/paging-people";
 import { transitionCandidate } from "@/lib/services/move-card";
 import { ackLinkSecret, verifyAckToken } from "./ack-links";
 import type { CandidateSummary } from "./content";
@@ -32,14 +32,7 @@ const refusals: Record<AckRefusal, { message: string; httpStatus: number }> = {
 const refuse = (reason: AckRefusal, extra: { usedAt?: string } = {}): AckLinkState => ({ state: "refused", reason, ...refusals[reason], ...extra });
 
 async function candidateState(candidateId: string) {
-  const db = await getDb();
-  const [row] = await db
-    .select({ candidate: candidates, ackName: users.name })
-    .from(candidates)
-    .leftJoin(users, eq(users.id, candidates.acknowledgedById))
-    .where(eq(candidates.id, candidateId))
-    .limit(1);
-  return row ?? null;
+  return candidateWithAcknowledger(await getDb(), candidateId);
 }
 
 /**
@@ -90,8 +83,7 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
   if (!actor) return fail("forged");
   // A refused attempt (say the owner was demoted since the page) leaves the link unspent: spend it only on success.
   if (!hasRole(actor, can.triage)) return fail("not-allowed");
-  const spent = await db.update(ackTokens).set({ usedAt: now }).where(and(eq(ackTokens.id, check.claims.id), isNull(ackTokens.usedAt))).returning({ id: ackTokens.id });
-  if (spent.length === 0) return fail("used");
+  if (!(await spendAckToken(db, check.claims.id, now))) return fail("used");
   const candidateId = check.claims.candidateId;
   try {
     const before = await candidateState(candidateId);
@@ -101,7 +93,7 @@ export async function acknowledgeWithLink(token: string, via: "email" | "push", 
     }
   } catch (error) {
     // 403: the role cannot triage; 409/422: someone moved it first — then it is "already", below.
-    const giveBack = () => db.update(ackTokens).set({ usedAt: null }).where(eq(ackTokens.id, check.claims.id));
+    const giveBack = () => unspendAckToken(db, check.claims.id);
     if (error instanceof ApiError && error.status === 403) {
       await giveBack();
       return fail("not-allowed");

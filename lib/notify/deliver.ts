@@ -1,6 +1,7 @@
-import { eq } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidates, pushSubscriptions, users, type Notification, type PagingPreferences } from "@/db/schema";
+import type { Notification, PagingPreferences } from "@/db/schema";
+import { devicesOfUser, forgetDevice, markDeviceReached } from "@/lib/data/devices";
+import { candidateTriageState, readUserRow } from "@/lib/data/paging-people";
 import { onCallPrimaryUntil } from "@/lib/data/rota";
 import { PAGE_FAILING_ATTEMPTS, pageBackoff, retryDelayMs, type BackoffOptions } from "./backoff";
 import { renderEmail } from "./channels/email-content";
@@ -57,11 +58,11 @@ export async function deliver(row: Notification, ctx: DeliveryContext): Promise<
   const payload: NotificationPayload = { tag: `n-${row.id}`, ...(row.payload as NotificationPayload | null) };
   if (row.attempts > ctx.maxAttempts && !pageKinds.has(row.kind)) return { status: "failed", error: `abandoned ${row.attempts - 1} times by crashed workers` };
   if (!row.userId) return { status: "failed", error: "row has no recipient" };
-  const [user] = await db.select().from(users).where(eq(users.id, row.userId)).limit(1);
+  const user = await readUserRow(db, row.userId);
   if (!user || user.disabledAt) return { status: "skipped", reason: "recipient is no longer active" };
   if (pageKinds.has(row.kind) && row.candidateId) {
-    const [c] = await db.select({ state: candidates.triageState }).from(candidates).where(eq(candidates.id, row.candidateId)).limit(1);
-    if (c && c.state !== "new") return { status: "skipped", reason: `acknowledged before delivery (${c.state})` };
+    const state = await candidateTriageState(db, row.candidateId);
+    if (state !== null && state !== "new") return { status: "skipped", reason: `acknowledged before delivery (${state})` };
   }
   // The on-call primary cannot mute pages during their shift.
   const onCall = pageKinds.has(row.kind) && (payload.onCall === true || (await onCallPrimaryUntil(db, user.id, ctx.now)) !== null);
@@ -98,8 +99,7 @@ async function deliverEmail(
 
 async function deliverPush(row: Notification, payload: NotificationPayload, ctx: DeliveryContext): Promise<Outcome> {
   if (!ctx.push) return retryOrFail(row, ctx, "no VAPID keys configured");
-  const db = await getDb();
-  const devices = await db.select().from(pushSubscriptions).where(eq(pushSubscriptions.userId, row.userId ?? ""));
+  const devices = await devicesOfUser(row.userId ?? "");
   const already = new Set(payload.deliveredTo ?? []);
   const todo = devices.filter((d) => !already.has(d.id));
   if (devices.length === 0 || (todo.length === 0 && already.size === 0)) return { status: "skipped", reason: "no push device subscribed" };
@@ -121,10 +121,10 @@ async function deliverPush(row: Notification, payload: NotificationPayload, ctx:
       if (!attempt) return;
       if (attempt.ok) {
         already.add(device.id);
-        await db.update(pushSubscriptions).set({ lastSuccessAt: ctx.now }).where(eq(pushSubscriptions.id, device.id));
+        await markDeviceReached(device.id, ctx.now);
       } else if (attempt.gone) {
         gone += 1;
-        await db.delete(pushSubscriptions).where(eq(pushSubscriptions.id, device.id));
+        await forgetDevice(device.id);
       } else (attempt.permanent ? permanent : transient).push(attempt.error);
     }),
   );

@@ -1,7 +1,7 @@
-import { and, asc, eq, lte } from "drizzle-orm";
 import { getDb } from "@/db";
-import { candidates, escalations } from "@/db/schema";
+import { anyEscalationDue, closeEscalation, listDueEscalations } from "@/lib/data/escalations";
 import { appendEvent } from "@/lib/data/events";
+import { readCandidateRow } from "@/lib/data/paging-people";
 import { findShiftAt } from "@/lib/data/rota";
 import { eventKinds } from "@/lib/events/kinds";
 import type { EscalationTarget } from "@/lib/validations/paging";
@@ -9,8 +9,6 @@ import { candidateTextFor } from "./content";
 import { candidatePath } from "./links";
 import { queueNotifications } from "./outbox";
 import { resolveTarget, targetRoleLabel } from "./recipients";
-
-const due = (now: Date) => and(eq(escalations.status, "pending"), lte(escalations.dueAt, now));
 
 export interface EscalationRun {
   fired: number;
@@ -25,15 +23,14 @@ export interface EscalationRun {
  */
 export async function fireDueEscalations(workerId: string, now: Date, limit = 50): Promise<EscalationRun> {
   const db = await getDb();
-  const [any] = await db.select({ id: escalations.id }).from(escalations).where(due(now)).limit(1);
-  if (!any) return { fired: 0, cancelled: 0 };
+  if (!(await anyEscalationDue(now))) return { fired: 0, cancelled: 0 };
   return db.transaction(async (tx) => {
-      const rows = await tx.select().from(escalations).where(due(now)).orderBy(asc(escalations.dueAt)).limit(limit);
+      const rows = await listDueEscalations(tx, now, limit);
       const run: EscalationRun = { fired: 0, cancelled: 0 };
       for (const timer of rows) {
-        const [c] = await tx.select().from(candidates).where(eq(candidates.id, timer.candidateId)).limit(1);
+        const c = await readCandidateRow(tx, timer.candidateId);
         if (!c || c.triageState !== "new" || c.withdrawnAt) {
-          await tx.update(escalations).set({ status: "cancelled", lockedBy: workerId }).where(eq(escalations.id, timer.id));
+          await closeEscalation(tx, timer.id, workerId, { status: "cancelled" });
           run.cancelled += 1;
           continue;
         }
@@ -61,7 +58,7 @@ export async function fireDueEscalations(workerId: string, now: Date, limit = 50
             data: { userIds, channels: ["push", "email", "in-app"], reason: "escalation", step: timer.step, target },
           });
         }
-        await tx.update(escalations).set({ status: "fired", firedAt: now, lockedBy: workerId }).where(eq(escalations.id, timer.id));
+        await closeEscalation(tx, timer.id, workerId, { status: "fired", firedAt: now });
         run.fired += 1;
       }
       return run;

@@ -1,7 +1,6 @@
-import { and, eq, inArray } from "drizzle-orm";
-import { followUpTasks, sites } from "@/db/schema";
 import type { Tx } from "@/db";
 import { appendEvent } from "@/lib/data/events";
+import { tasksWithSiteCodes } from "@/lib/data/tasks";
 import { eventKinds } from "@/lib/events/kinds";
 import { notifyNow } from "./clock";
 import { cancelCandidatePaging, queueNotifications } from "./outbox";
@@ -102,11 +101,7 @@ export interface TasksCreated {
 export async function onTasksCreated(tx: Tx, info: TasksCreated): Promise<void> {
   if (info.taskIds.length === 0) return;
   const now = notifyNow();
-  const tasks = await tx
-    .select({ id: followUpTasks.id, siteId: followUpTasks.siteId, kind: followUpTasks.kind, siteCode: sites.code })
-    .from(followUpTasks)
-    .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
-    .where(and(inArray(followUpTasks.id, info.taskIds), eq(followUpTasks.candidateId, info.candidateId)));
+  const tasks = await tasksWithSiteCodes(tx, info.candidateId, info.taskIds);
   const bySite = await taskListenersBySite(tx, [...new Set(tasks.flatMap((t) => (t.siteId ? [t.siteId] : [])))]);
   const perUser = new Map<string, string[]>();
   for (const task of tasks) {

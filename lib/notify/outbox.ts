@@ -1,6 +1,7 @@
-import { and, eq, inArray } from "drizzle-orm";
-import { ackTokens, escalations, notifications, type Channel, type NewNotification } from "@/db/schema";
+import type { ackTokens, Channel, NewNotification } from "@/db/schema";
 import type { Tx } from "@/db";
+import { cancelPendingEscalations } from "@/lib/data/escalations";
+import { cancelPendingPages, insertNotifications } from "@/lib/data/outbox";
 import { ackLinkSecret, mintAckToken } from "./ack-links";
 import { ackConfirmPath, ackPagePath, appBaseUrl } from "./links";
 
@@ -75,11 +76,7 @@ export async function queueNotifications(tx: Tx, spec: QueueSpec, userIds: reado
       rows.push({ ...common, dedupeKey: dedupeKey(spec.eventId, userId, channel), channel, status: "pending", payload });
     }
   }
-  if (rows.length === 0) return 0;
-  // One statement for every recipient's tokens, before the rows that link to them.
-  if (tokenRows.length > 0) await tx.insert(ackTokens).values(tokenRows);
-  const inserted = await tx.insert(notifications).values(rows).onConflictDoNothing({ target: notifications.dedupeKey }).returning({ id: notifications.id });
-  return inserted.length;
+  return insertNotifications(tx, rows, tokenRows);
 }
 
 /**
@@ -87,21 +84,6 @@ export async function queueNotifications(tx: Tx, spec: QueueSpec, userIds: reado
  * a channel. Rows a worker holds right now (status "sending") finish; the ack state stops the next step.
  */
 export async function cancelCandidatePaging(tx: Tx, candidateId: string, reason: string, now: Date): Promise<{ escalations: number; notifications: number }> {
-  const stopped = await tx
-    .update(escalations)
-    .set({ status: "cancelled", firedAt: null, lockedBy: null, lockedUntil: null })
-    .where(and(eq(escalations.candidateId, candidateId), eq(escalations.status, "pending")))
-    .returning({ id: escalations.id });
-  const dropped = await tx
-    .update(notifications)
-    .set({ status: "cancelled", lastError: reason, lockedBy: null, lockedUntil: null, nextAttemptAt: now })
-    .where(
-      and(
-        eq(notifications.candidateId, candidateId),
-        eq(notifications.status, "pending"),
-        inArray(notifications.kind, ["page", "escalation"]),
-      ),
-    )
-    .returning({ id: notifications.id });
-  return { escalations: stopped.length, notifications: dropped.length };
+  const escalationsStopped = await cancelPendingEscalations(tx, candidateId);
+  return { escalations: escalationsStopped, notifications: await cancelPendingPages(tx, candidateId, reason, now) };
 }

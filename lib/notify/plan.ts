@@ -1,7 +1,7 @@
-import { eq } from "drizzle-orm";
-import { candidates, escalations, users } from "@/db/schema";
 import type { Tx } from "@/db";
+import { insertEscalationTimers } from "@/lib/data/escalations";
 import { appendEvent } from "@/lib/data/events";
+import { readCandidateRow, userTimeZone } from "@/lib/data/paging-people";
 import { findShiftAt } from "@/lib/data/rota";
 import { getSetting } from "@/lib/data/settings";
 import { eventKinds } from "@/lib/events/kinds";
@@ -21,8 +21,7 @@ export interface NewCandidateInfo {
 }
 
 export async function readCandidateSummary(tx: Tx, candidateId: string): Promise<CandidateSummary | null> {
-  const [row] = await tx.select().from(candidates).where(eq(candidates.id, candidateId)).limit(1);
-  return row ?? null;
+  return readCandidateRow(tx, candidateId);
 }
 
 /**
@@ -35,10 +34,8 @@ export async function pageNewCandidate(tx: Tx, info: NewCandidateInfo, now: Date
   if (!candidate) return;
   const policy = await getSetting("escalation", tx);
   const shift = await findShiftAt(tx, info.receivedAt);
-  const [primary] = shift
-    ? await tx.select({ timeZone: users.timeZone }).from(users).where(eq(users.id, shift.primaryId)).limit(1)
-    : [];
-  const plan = planPaging(policy, { ...info, primaryTimeZone: primary?.timeZone ?? "UTC", now });
+  const primaryTimeZone = (shift ? await userTimeZone(tx, shift.primaryId) : null) ?? "UTC";
+  const plan = planPaging(policy, { ...info, primaryTimeZone, now });
   if (plan.action === "none") return;
 
   const path = candidatePath(info.candidateId);
@@ -94,11 +91,5 @@ export async function pageNewCandidate(tx: Tx, info: NewCandidateInfo, now: Date
       data: { userIds, channels: ["push", "email", "in-app"], reason: "new-candidate", step: firstStep.step, target: firstStep.target },
     });
   }
-  const later = plan.steps.slice(first + 1);
-  if (later.length > 0) {
-    await tx
-      .insert(escalations)
-      .values(later.map((s) => ({ candidateId: info.candidateId, step: s.step, target: s.target, dueAt: s.dueAt, createdAt: now })))
-      .onConflictDoNothing();
-  }
+  await insertEscalationTimers(tx, info.candidateId, plan.steps.slice(first + 1), now);
 }

@@ -1,8 +1,9 @@
-import { asc, eq, inArray } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
-import { notificationPreferences, siteObservers, sites, type PagingPreferences } from "@/db/schema";
+import type { PagingPreferences } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
+import { observedSiteIds, readSavedPreferences, readSavedPreferencesMany, writePreferences } from "@/lib/data/paging-people";
+import { loadSites } from "@/lib/data/review";
 import { onCallPrimaryUntil } from "@/lib/data/rota";
 import type { PreferencesInput } from "@/lib/validations/paging";
 
@@ -17,18 +18,16 @@ export const defaultPreferences = (taskSiteIds: string[] = []): PagingPreference
 
 /** Saved preferences, or the defaults (task sites: the sites the person observes at). */
 export async function readPreferences(q: Tx, userId: string): Promise<PagingPreferences> {
-  const [row] = await q.select().from(notificationPreferences).where(eq(notificationPreferences.userId, userId)).limit(1);
-  if (row) return { ...defaultPreferences(), ...row.preferences };
-  const sites = await q.select({ siteId: siteObservers.siteId }).from(siteObservers).where(eq(siteObservers.userId, userId));
-  return defaultPreferences(sites.map((s) => s.siteId));
+  const saved = await readSavedPreferences(q, userId);
+  if (saved) return { ...defaultPreferences(), ...saved };
+  return defaultPreferences(await observedSiteIds(q, userId));
 }
 
 /** Preferences of several people at once (the worker reads them per batch). */
 export async function readPreferencesMany(q: Tx, userIds: string[]): Promise<Map<string, PagingPreferences>> {
   const out = new Map<string, PagingPreferences>();
   if (userIds.length === 0) return out;
-  const rows = await q.select().from(notificationPreferences).where(inArray(notificationPreferences.userId, userIds));
-  for (const row of rows) out.set(row.userId, { ...defaultPreferences(), ...row.preferences });
+  for (const [userId, saved] of await readSavedPreferencesMany(q, userIds)) out.set(userId, { ...defaultPreferences(), ...saved });
   for (const id of userIds) if (!out.has(id)) out.set(id, defaultPreferences());
   return out;
 }
@@ -44,7 +43,7 @@ export interface PreferencesView {
 export async function getPreferencesView(user: SessionUser, now = new Date()): Promise<PreferencesView> {
   const db = await getDb();
   const until = await onCallPrimaryUntil(db, user.id, now);
-  const allSites = await db.select({ id: sites.id, code: sites.code, name: sites.name }).from(sites).orderBy(asc(sites.code));
+  const allSites = await loadSites(db);
   return { preferences: await readPreferences(db, user.id), onCallUntil: until?.toISOString() ?? null, timeZone: user.timeZone, sites: allSites };
 }
 
@@ -61,15 +60,12 @@ export async function savePreferences(user: SessionUser, input: PreferencesInput
       onCallUntil: until.toISOString(),
     });
   }
-  const known = new Set((await db.select({ id: sites.id }).from(sites)).map((s) => s.id));
+  const known = new Set((await loadSites(db)).map((s) => s.id));
   const unknown = input.taskSiteIds.filter((id) => !known.has(id));
   if (unknown.length > 0) {
     throw new ApiError(422, `unknown site ${unknown[0]}`, { issues: [{ path: "taskSiteIds", message: "unknown site" }] });
   }
   const preferences: PagingPreferences = { ...input, taskSiteIds: [...new Set(input.taskSiteIds)] };
-  await db
-      .insert(notificationPreferences)
-      .values({ userId: user.id, preferences, updatedAt: now })
-      .onConflictDoUpdate({ target: notificationPreferences.userId, set: { preferences, updatedAt: now } });
+  await writePreferences(db, user.id, preferences, now);
   return getPreferencesView(user, now);
 }

@@ -1,6 +1,5 @@
-import { eq } from "drizzle-orm";
-import { users } from "@/db/schema";
 import type { Tx } from "@/db";
+import { userTimeZone } from "@/lib/data/paging-people";
 import { findShiftAt } from "@/lib/data/rota";
 import { getSetting } from "@/lib/data/settings";
 import type { EscalationPolicy } from "@/lib/validations/paging";
@@ -38,8 +37,6 @@ export async function joinPagesLouder(tx: Tx, before: HeadlineForPaging, after: 
   if (before.stage === after.stage && before.falseAlarmRatePerYear === after.falseAlarmRatePerYear) return false;
   const policy = await getSetting("escalation", tx);
   const shift = await findShiftAt(tx, receivedAt);
-  const [primary] = shift
-    ? await tx.select({ timeZone: users.timeZone }).from(users).where(eq(users.id, shift.primaryId)).limit(1)
-    : [];
-  return pagesLouder(policy, before, after, { receivedAt, now, primaryTimeZone: primary?.timeZone ?? "UTC" });
+  const primaryTimeZone = (shift ? await userTimeZone(tx, shift.primaryId) : null) ?? "UTC";
+  return pagesLouder(policy, before, after, { receivedAt, now, primaryTimeZone });
 }
