@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { PagingSettings } from "@/components/paging/paging-settings";
 import { ApiTokens } from "@/components/settings/api-tokens";
 import { GroupingForm } from "@/components/settings/grouping-form";
@@ -24,6 +25,18 @@ export default async function SettingsPage() {
         <PanelTitle>How you are paged</PanelTitle>
         <PagingSettings role={user.role} />
       </Panel>
+      {grouping ? (
+        <Panel>
+          <PanelTitle>Physics for triage</PanelTitle>
+          <p className="text-sm text-muted">
+            Class boundaries, neutron-star radius, sample count, chirp model and p-astro inputs:{" "}
+            <Link href="/settings/physics" className="text-accent hover:underline">
+              physics settings
+            </Link>
+            .
+          </p>
+        </Panel>
+      ) : null}
       {grouping ? (
         <Panel>
           <PanelTitle>Grouping triggers into candidates</PanelTitle>
