@@ -49,6 +49,10 @@ describe("the board read", () => {
     // Chirp mass of 1.5 + 1.3 M☉ is 1.2115 M☉ (definition, Peters & Mathews 1963); the fit should land near it.
     expect(alpha?.chirpMassDetectorFrame).toBeCloseTo(1.2115, 1);
     expect(alpha?.chirpMassDetectorFrameSd).toBeGreaterThan(0);
+    // p-astro at SNR 20, FAR 10⁻³/yr with the defaults: 50·3·8³/20⁴ / (that + 20·10⁻³) = 0.48 / 0.50 (p-astro.ts)
+    expect(alpha?.pAstro).toBeCloseTo(0.48 / 0.5, 3);
+    expect(alpha?.chirpModel).toBe("pn-3.5");
+    expect(alpha?.chirpMassError).toBeNull();
     const p = alpha?.classes;
     expect(p && p.bns + p.nsbh + p.bbh + p.lowerGap).toBeCloseTo(1, 6);
     expect(p && p.bns).toBeGreaterThan(0.5);
