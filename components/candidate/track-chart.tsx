@@ -6,9 +6,8 @@ import type { TrackSeries } from "./track-data";
 const axis = { stroke: "var(--c-muted)", fontSize: 11 };
 const tick = (v: number) => (Math.abs(v) >= 1000 || (Math.abs(v) < 0.01 && v !== 0) ? v.toExponential(1) : String(Number(v.toPrecision(3))));
 
-/** The measured track with the fitted leading-order chirp, and the residuals beneath (recharts; loaded on demand). */
+/** The measured track with the fitted chirp (the model fit.model names), and the residuals beneath (recharts; loaded on demand). */
 export default function TrackChart({ series }: { series: TrackSeries }) {
-  const logY = series.kind === "derivative-vs-frequency";
   return (
     <div className="space-y-2" role="img" aria-label={`${series.yLabel} against ${series.xLabel}: measured track, fitted chirp and residuals`}>
       <div className="h-64">
@@ -16,7 +15,7 @@ export default function TrackChart({ series }: { series: TrackSeries }) {
           <ComposedChart margin={{ top: 8, right: 12, bottom: 18, left: 8 }}>
             <CartesianGrid stroke="var(--c-line)" strokeDasharray="3 3" />
             <XAxis dataKey="x" type="number" domain={["dataMin", "dataMax"]} tickFormatter={tick} {...axis} label={{ value: series.xLabel, position: "insideBottom", offset: -10, fill: "var(--c-muted)", fontSize: 11 }} />
-            <YAxis dataKey="y" type="number" scale={logY ? "log" : "auto"} domain={["auto", "auto"]} tickFormatter={tick} {...axis} label={{ value: series.yLabel, angle: -90, position: "insideLeft", fill: "var(--c-muted)", fontSize: 11 }} />
+            <YAxis dataKey="y" type="number" domain={["auto", "auto"]} tickFormatter={tick} {...axis} label={{ value: series.yLabel, angle: -90, position: "insideLeft", fill: "var(--c-muted)", fontSize: 11 }} />
             <Tooltip formatter={(v) => (typeof v === "number" ? tick(v) : String(v))} contentStyle={{ background: "var(--c-surface)", border: "1px solid var(--c-line)", fontSize: 12 }} />
             <ZAxis range={[14, 14]} />
             <Legend verticalAlign="top" height={24} wrapperStyle={{ fontSize: 12 }} />

@@ -1,7 +1,7 @@
 import type { FitPlot } from "@/lib/physics/derived-types";
 
 export interface TrackSeries {
-  kind: "frequency-vs-time" | "derivative-vs-frequency";
+  kind: "frequency-vs-time";
   xLabel: string;
   yLabel: string;
   residualLabel: string;
@@ -46,21 +46,6 @@ export function trackSeries(plot: FitPlot | null | undefined, payloadTrack: unkn
             return typeof r === "number" ? [{ x, r }] : [];
           })
         : [],
-    };
-  }
-  if (plot?.kind === "derivative-vs-frequency" || Array.isArray(track.dfdt)) {
-    const f = numbers(track.f);
-    const d = numbers(track.dfdt);
-    const measured = f.length && f.length === d.length ? f.map((x, i) => ({ x, y: d[i] as number })) : [];
-    const fromPlot = plot?.kind === "derivative-vs-frequency" ? plot : null;
-    return {
-      kind: "derivative-vs-frequency",
-      xLabel: "Frequency (Hz)",
-      yLabel: "df/dt (Hz/s)",
-      residualLabel: "Residual (fraction)",
-      samples: decimate(measured),
-      curve: fromPlot ? fromPlot.curve.frequencyHz.map((x, i) => ({ x, y: fromPlot.curve.dfdtHzPerS[i] ?? 0 })) : [],
-      residuals: fromPlot ? fromPlot.samples.frequencyHz.map((x, i) => ({ x, r: fromPlot.samples.residualFraction[i] ?? 0 })) : [],
     };
   }
   return null;

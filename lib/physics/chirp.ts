@@ -7,9 +7,6 @@ import { SUN_MASS_TIME_S } from "./constants";
 /** (256/5) π^(8/3): coefficient of f^(-8/3) = C (G𝓜/c³)^(5/3) (t_c − t), Peters & Mathews 1963. */
 export const CHIRP_TIME_COEFFICIENT = (256 / 5) * Math.PI ** (8 / 3);
 
-/** (96/5) π^(8/3): coefficient of df/dt = C (G𝓜/c³)^(5/3) f^(11/3), Peters & Mathews 1963. */
-export const CHIRP_DERIVATIVE_COEFFICIENT = (96 / 5) * Math.PI ** (8 / 3);
-
 /** Chirp mass (m1 m2)^(3/5) / (m1 + m2)^(1/5) in the frame of the inputs; definition from Peters & Mathews 1963. */
 export function chirpMassFromComponents(mass1Solar: number, mass2Solar: number): number {
   return (mass1Solar * mass2Solar) ** 0.6 / (mass1Solar + mass2Solar) ** 0.2;
@@ -34,12 +31,6 @@ export function chirpFrequencyAt(chirpMassDetectorFrame: number, tcSeconds: numb
   if (!(chirpMassDetectorFrame > 0) || !(remainingS > 0)) return Number.NaN;
   const chirpTimeS = SUN_MASS_TIME_S * chirpMassDetectorFrame;
   return (1 / Math.PI) * (5 / (256 * remainingS)) ** (3 / 8) * chirpTimeS ** (-5 / 8);
-}
-
-/** df/dt (Hz/s) at frequency f (Hz): (96/5) π^(8/3) (G𝓜/c³)^(5/3) f^(11/3), Peters & Mathews 1963. */
-export function chirpFrequencyDerivative(chirpMassDetectorFrame: number, frequencyHz: number): number {
-  const chirpTimeS = SUN_MASS_TIME_S * chirpMassDetectorFrame;
-  return CHIRP_DERIVATIVE_COEFFICIENT * chirpTimeS ** (5 / 3) * frequencyHz ** (11 / 3);
 }
 
 /** Inverts (G𝓜/c³)^(5/3) = slope / coefficient to a chirp mass in solar masses, working in logs (no overflow). */

@@ -82,7 +82,6 @@ export function computeDerivedPhysics(input: TriggerPhysicsInput, givenSettings:
   const coalescence = guarded<ValueWithSd>(() => {
     if (!track.ok) return track;
     if (track.value.notChirpLike !== null) return fail("track-not-chirp-like", track.value.notChirpLike);
-    if (track.value.coalescence === null) return fail("missing-input", "(f, df/dt) pairs carry no times, so no coalescence time");
     return succeed(track.value.coalescence);
   });
   const receiptOffsetS = safeInput.secondsSinceEventTimeAtReceipt;

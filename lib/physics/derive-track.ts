@@ -3,12 +3,11 @@
  * (3.5PN TaylorT4 when the trigger's masses are usable, else leading order, said in `fit.model` and a warning),
  * and the chirp-shape check (chirp-shape.ts). A track that fails plausibility or shape gets no chirp mass.
  */
-import { fitDerivativeTrack, type DerivativeTrackInput } from "./chirp-fit-derivative";
 import { fitPnTrack, type PnBinaryInput } from "./chirp-fit-pn";
 import { fitTimeTrack, type TimeTrackFit, type TimeTrackInput } from "./chirp-fit-time";
 import { checkChirpShape, type ShapeCheck } from "./chirp-shape";
 import type { FitDiagnostics, FitPlot, ValueWithSd } from "./derived-types";
-import { derivativeTrackPlot, timeTrackPlot } from "./fit-plot";
+import { timeTrackPlot } from "./fit-plot";
 import { fail, succeed, type PhysicsResult } from "./result";
 import { checkTrackPlausibility } from "./track-plausibility";
 import { validateTimeTrack } from "./time-track-validation";
@@ -18,7 +17,7 @@ export type TrackFitOutcome = {
   fit: FitDiagnostics;
   plot: FitPlot;
   chirpMass: ValueWithSd;
-  coalescence: ValueWithSd | null;
+  coalescence: ValueWithSd;
   /** set when the shape check failed: the chirp mass and t_c must not be shown */
   notChirpLike: string | null;
 };
@@ -117,35 +116,9 @@ function timeOutcome(track: TimeTrackInput, input: Partial<TriggerPhysicsInput>,
   });
 }
 
+/** The feed sends f(t) samples only (lib/validations/feed.ts); anything else fails validation as "missing-input". */
 export function fitTrack(input: Partial<TriggerPhysicsInput>, settings: PhysicsSettings, seed: string): PhysicsResult<TrackFitOutcome> {
   const track = input.frequencyTrack;
   if (track === undefined || track === null || typeof track !== "object") return fail("missing-input", "no frequency track");
-  if ("t" in track) return timeOutcome(track, input, settings, seed);
-  // (f, df/dt) pairs: leading order only (they carry no times for the PN evolution).
-  const derivativeTrack: DerivativeTrackInput = track;
-  const result = fitDerivativeTrack(derivativeTrack);
-  if (!result.ok) return result;
-  const fit = result.value;
-  const range = frequencyRange(track.f);
-  return succeed({
-    fit: {
-      trackKind: "derivative",
-      model: "leading-order",
-      residualRms: fit.residualRmsFraction,
-      residualRmsUnit: "fraction",
-      samplesUsed: fit.samplesUsed,
-      reducedChiSquare: fit.reducedChiSquare,
-      uncertaintyScale: fit.uncertaintyScale,
-      weighting: fit.weighting,
-      frequencyMinHz: range.min,
-      frequencyMaxHz: range.max,
-      massRatio: null,
-      shapeCheck: null,
-      warnings: fitWarnings(fit.reducedChiSquare),
-    },
-    plot: derivativeTrackPlot(fit, track.f, track.dfdt),
-    chirpMass: { value: fit.chirpMassDetectorFrame, sd: fit.chirpMassDetectorFrameSd },
-    coalescence: null,
-    notChirpLike: null,
-  });
+  return timeOutcome(track, input, settings, seed);
 }

@@ -22,12 +22,13 @@ export interface ChirpMassBlock {
 }
 
 export interface FitDiagnostics {
-  trackKind: "time" | "derivative";
+  /** always "time": the feed sends f(t) samples (kept so stored results and API clients read the same shape) */
+  trackKind: "time";
   /** the frequency evolution fitted: 3.5PN TaylorT4 with the trigger's mass ratio, or leading order */
   model: "pn-3.5" | "leading-order";
-  /** RMS residual in residualRmsUnit: Hz for f(t) tracks, a dimensionless fraction of df/dt for (f, df/dt) pairs. */
+  /** RMS residual of the frequency samples about the fitted chirp, in residualRmsUnit (Hz). */
   residualRms: number | null;
-  residualRmsUnit: "Hz" | "fraction";
+  residualRmsUnit: "Hz";
   samplesUsed: number;
   reducedChiSquare: number | null;
   uncertaintyScale: number;
@@ -41,17 +42,11 @@ export interface FitDiagnostics {
   warnings: string[];
 }
 
-export type FitPlot =
-  | {
-      kind: "frequency-vs-time";
-      curve: { tS: number[]; frequencyHz: number[] };
-      samples: { tS: number[]; frequencyHz: number[]; residualHz: (number | null)[] };
-    }
-  | {
-      kind: "derivative-vs-frequency";
-      curve: { frequencyHz: number[]; dfdtHzPerS: number[] };
-      samples: { frequencyHz: number[]; dfdtHzPerS: number[]; residualFraction: number[] };
-    };
+export interface FitPlot {
+  kind: "frequency-vs-time";
+  curve: { tS: number[]; frequencyHz: number[] };
+  samples: { tS: number[]; frequencyHz: number[]; residualHz: (number | null)[] };
+}
 
 export interface Derived {
   chirpMass: ChirpMassBlock | null;

@@ -1,6 +1,4 @@
 /** Compact plot arrays for the candidate page: fitted curve and decimated samples with residuals (≤ 200 each). */
-import { chirpFrequencyDerivative } from "./chirp";
-import type { DerivativeTrackFit } from "./chirp-fit-derivative";
 import type { FitPlot } from "./derived-types";
 import { MAX_PLOT_POINTS, compactNumber, decimatedIndices } from "./plot-points";
 
@@ -28,33 +26,6 @@ export function timeTrackPlot(coalescenceTimeS: number, t: readonly number[], f:
         const model = frequencyAt(t[i] as number);
         return Number.isFinite(model) ? compactNumber((f[i] as number) - model) : null;
       }),
-    },
-  };
-}
-
-export function derivativeTrackPlot(fit: DerivativeTrackFit, f: readonly number[], dfdt: readonly number[]): FitPlot {
-  let low = Infinity;
-  let high = 0;
-  for (const value of f) {
-    low = Math.min(low, value);
-    high = Math.max(high, value);
-  }
-  const curveF: number[] = [];
-  const curveD: number[] = [];
-  const points = high > low ? MAX_PLOT_POINTS : 1;
-  for (let k = 0; k < points; k++) {
-    const fk = points === 1 ? low : low * (high / low) ** (k / (points - 1));
-    curveF.push(compactNumber(fk));
-    curveD.push(compactNumber(chirpFrequencyDerivative(fit.chirpMassDetectorFrame, fk)));
-  }
-  const indices = decimatedIndices(f.length);
-  return {
-    kind: "derivative-vs-frequency",
-    curve: { frequencyHz: curveF, dfdtHzPerS: curveD },
-    samples: {
-      frequencyHz: indices.map((i) => compactNumber(f[i] as number)),
-      dfdtHzPerS: indices.map((i) => compactNumber(dfdt[i] as number)),
-      residualFraction: indices.map((i) => compactNumber(fit.residualsFraction[i] as number)),
     },
   };
 }

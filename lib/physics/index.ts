@@ -37,8 +37,8 @@ export const defaultPhysicsSettings: PhysicsSettings = {
 };
 
 export interface TriggerPhysicsInput {
-  /** Either f(t) samples (t in s relative to eventTime, f in Hz) or (f, df/dt) pairs (Hz, Hz/s). */
-  frequencyTrack: { t: number[]; f: number[]; fSigma?: number[] } | { f: number[]; dfdt: number[]; dfdtSigma?: number[] };
+  /** f(t) samples: t in s relative to eventTime, f in Hz, optional 1σ fSigma in Hz (lib/validations/feed.ts). */
+  frequencyTrack: { t: number[]; f: number[]; fSigma?: number[] };
   /** Component masses, detector frame, solar masses. */
   masses: { m1: { mean: number; sd: number }; m2: { mean: number; sd: number } };
   /** Dimensionless spins aligned with the orbital angular momentum, in [−1, 1]. */
@@ -76,5 +76,4 @@ export { iscoGravitationalWaveFrequencyHz, iscoRadius, schwarzschildIscoFrequenc
 export { finalSpinAligned, radiatedEnergyFraction, ringdownMode } from "./remnant";
 export { fitTimeTrack } from "./chirp-fit-time";
 export { pnChirpFrequencyAt } from "./chirp-fit-pn-model";
-export { fitDerivativeTrack } from "./chirp-fit-derivative";
 export { computeSourceClasses } from "./source-class";

@@ -1,10 +1,9 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { fitDerivativeTrack } from "@/lib/physics/chirp-fit-derivative";
 import { evaluate, gaussNewton, inverseNormalOf, leadingOrderEvaluator } from "@/lib/physics/chirp-fit-model";
 import { fitTimeTrack } from "@/lib/physics/chirp-fit-time";
 import { chirpMassFromComponents } from "@/lib/physics/chirp";
-import { syntheticDerivativeTrack, syntheticTimeTrack } from "./track-helpers";
+import { syntheticTimeTrack } from "./track-helpers";
 
 // Tracks are generated from the Peters & Mathews 1963 chirp f(t) itself (issue 3: "synthetic tracks generated
 // from the formula"), so a noiseless fit must return the input chirp mass and coalescence time.
@@ -130,33 +129,6 @@ describe("fitTimeTrack on long tracks (start from a subsample, then the full dat
     // 68.3 % expected; binomial sd over 100 runs ≈ 4.7 %.
     expect(inside).toBeGreaterThan(54);
     expect(inside).toBeLessThan(83);
-  });
-});
-
-describe("fitDerivativeTrack (f, df/dt pairs)", () => {
-  it("recovers 𝓜 to 0.1 % without noise", () => {
-    const track = syntheticDerivativeTrack({ chirpMass: 8.7, lowHz: 20, highHz: 150, samples: 50 });
-    const fit = fitDerivativeTrack({ f: track.f, dfdt: track.dfdt });
-    expect(fit.ok && Math.abs(fit.value.chirpMassDetectorFrame / 8.7 - 1)).toBeLessThan(1e-3);
-  });
-
-  it("quotes honest uncertainties with 5 % df/dt noise", () => {
-    let inside = 0;
-    for (let k = 0; k < 200; k++) {
-      const track = syntheticDerivativeTrack({ chirpMass: 8.7, lowHz: 20, highHz: 150, samples: 40, relativeNoise: 0.05, seed: `d-${k}` });
-      const fit = fitDerivativeTrack(track);
-      if (!fit.ok) throw new Error(fit.detail);
-      if (Math.abs(fit.value.chirpMassDetectorFrame - 8.7) < fit.value.chirpMassDetectorFrameSd) inside++;
-    }
-    expect(inside / 200).toBeGreaterThan(0.58);
-    expect(inside / 200).toBeLessThan(0.79);
-  });
-
-  it("rejects non-rising or malformed pairs with typed failures", () => {
-    expect(fitDerivativeTrack({ f: [20, 30, 40], dfdt: [1, -2, 3] })).toMatchObject({ ok: false, reason: "frequency-not-rising" });
-    expect(fitDerivativeTrack({ f: [20, 30], dfdt: [1, 2] })).toMatchObject({ ok: false, reason: "too-few-samples" });
-    expect(fitDerivativeTrack({ f: [20, 0, 40], dfdt: [1, 2, 3] })).toMatchObject({ ok: false, reason: "non-positive-frequency" });
-    expect(fitDerivativeTrack({ f: [20, 30, 40], dfdt: [1, 2] })).toMatchObject({ ok: false, reason: "length-mismatch" });
   });
 });
 

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { chirpMassFromComponents, computeDerived, defaultPhysicsSettings, secondsToMergerAt, type Derived, type TriggerPhysicsInput } from "@/lib/physics";
-import { syntheticDerivativeTrack, syntheticTimeTrack } from "./track-helpers";
+import { syntheticTimeTrack } from "./track-helpers";
 
 const chirpMass = chirpMassFromComponents(1.45, 1.3);
 const earlyWarningTrack = syntheticTimeTrack({ chirpMass, tcS: 0, startS: -90, endS: -30, samples: 1_500, relativeNoise: 0.005, seed: "ew" });
@@ -94,18 +94,6 @@ describe("computeDerived", () => {
     expect(derived.chirpMass?.sourceFrame?.value).toBe(derived.chirpMass?.detectorFrame.value);
   });
 
-  it("accepts (f, df/dt) pairs and explains the missing coalescence time", () => {
-    const track = syntheticDerivativeTrack({ chirpMass: 20, lowHz: 25, highHz: 120, samples: 30 });
-    const derived = computeDerived({ ...earlyWarning, frequencyTrack: { f: track.f, dfdt: track.dfdt } }, defaultPhysicsSettings, "d");
-    expectNullWithReason(derived);
-    expect(derived.chirpMass?.detectorFrame.value).toBeCloseTo(20, 6);
-    expect(derived.coalescenceTime).toBeNull();
-    expect(derived.coalescenceTimeError).toMatch(/no coalescence time/);
-    expect(derived.secondsToMerger).toBeNull();
-    expect(derived.fit?.residualRmsUnit).toBe("fraction");
-    expect(derived.plot?.kind).toBe("derivative-vs-frequency");
-  });
-
   it("fails block by block: a bad track keeps the classes, a bad distance keeps the fit", () => {
     const badTrack = computeDerived({ ...earlyWarning, frequencyTrack: { t: [0, 1], f: [30, 31] } }, defaultPhysicsSettings, "s");
     expectNullWithReason(badTrack);
@@ -127,10 +115,9 @@ describe("computeDerived", () => {
     const finite = fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e6, max: 1e6 });
     const gaussian = fc.record({ mean: finite, sd: finite });
     const timeTrack = fc.record({ t: fc.array(finite, { maxLength: 20 }), f: fc.array(finite, { maxLength: 20 }) });
-    const derivativeTrack = fc.record({ f: fc.array(finite, { maxLength: 20 }), dfdt: fc.array(finite, { maxLength: 20 }) });
     const input = fc.record(
       {
-        frequencyTrack: fc.oneof(timeTrack, derivativeTrack),
+        frequencyTrack: timeTrack,
         masses: fc.record({ m1: gaussian, m2: gaussian }),
         spins: fc.record({ chi1: finite, chi2: finite }),
         distanceMpc: gaussian,

@@ -1,5 +1,5 @@
 /** Synthetic chirp tracks from the Peters & Mathews 1963 relations, with optional relative Gaussian noise. */
-import { chirpFrequencyAt, chirpFrequencyDerivative } from "@/lib/physics/chirp";
+import { chirpFrequencyAt } from "@/lib/physics/chirp";
 import { SeededRandom } from "@/lib/physics/random";
 
 export interface SyntheticTrack {
@@ -26,27 +26,6 @@ export function syntheticTimeTrack(options: {
     track.t.push(t);
     track.f.push(f * (1 + noise * random.normal()));
     track.fSigma.push(noise * f);
-  }
-  return track;
-}
-
-export function syntheticDerivativeTrack(options: {
-  chirpMass: number;
-  lowHz: number;
-  highHz: number;
-  samples: number;
-  relativeNoise?: number;
-  seed?: string;
-}): { f: number[]; dfdt: number[]; dfdtSigma: number[] } {
-  const random = new SeededRandom(options.seed ?? "derivative");
-  const noise = options.relativeNoise ?? 0;
-  const track = { f: [] as number[], dfdt: [] as number[], dfdtSigma: [] as number[] };
-  for (let i = 0; i < options.samples; i++) {
-    const f = options.lowHz * (options.highHz / options.lowHz) ** (i / (options.samples - 1));
-    const dfdt = chirpFrequencyDerivative(options.chirpMass, f);
-    track.f.push(f);
-    track.dfdt.push(dfdt * (1 + noise * random.normal()));
-    track.dfdtSigma.push(noise * dfdt);
   }
   return track;
 }
