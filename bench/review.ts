@@ -13,7 +13,7 @@ import { closeDb, getDb } from "@/db";
 import { migrateDatabase } from "@/db/migrate";
 import { reviewQueries, type ReviewFilters } from "@/lib/data/review";
 import { loadCandidateFacts } from "@/lib/review/facts";
-import { buildReviewReport } from "@/lib/review/report";
+import { buildReviewReport } from "@/lib/services/build-review";
 import { listReviewCandidates } from "@/lib/review/list";
 import { writeYearOfActivity } from "./review-activity";
 

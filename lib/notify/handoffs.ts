@@ -1,7 +1,7 @@
 import { loggableMessage } from "@/db/loggable-error";
-import { queueDueHandoffs } from "@/lib/review/handoff";
+import { queueDueHandoffs } from "@/lib/services/queue-handoffs";
 
-/** End-of-shift handoffs are the review area's (lib/review/handoff.ts); the worker calls this each cycle. */
+/** End-of-shift handoffs are queued by a service (lib/services/queue-handoffs.ts); the worker calls this each cycle. */
 export async function queueHandoffs(now: Date, log: (m: string) => void): Promise<void> {
   try {
     await queueDueHandoffs(now);

@@ -1,13 +1,13 @@
 import { getSetting, type SettingValue } from "@/lib/data/settings";
-import { loadPeople, loadShift, loadShifts, type ReviewFilters } from "@/lib/data/review";
+import { loadShift, type ReviewFilters } from "@/lib/data/review";
 import type { Tx } from "@/db";
 import { reviewCandidates, type CandidateReview } from "./evaluate";
 import { involves, loadCandidateFacts } from "./facts";
-import { personRows, shiftRows, type PersonRow, type ShiftRow } from "./groups";
-import { histogramOf, type HistogramBin } from "./histogram";
-import { stepDeadlinesMs, stepIds, type StepId } from "./steps";
-import { summariseSteps, type StepFigures } from "./summary";
-import { weeklyTrend, type WeekPoint } from "./trend";
+import type { PersonRow, ShiftRow } from "./groups";
+import type { HistogramBin } from "./histogram";
+import { stepDeadlinesMs, type StepId } from "./steps";
+import type { StepFigures } from "./summary";
+import type { WeekPoint } from "./trend";
 
 export interface ReviewRequest extends ReviewFilters {
   shiftId?: string;
@@ -43,6 +43,7 @@ export async function loadReviewScope(req: ReviewRequest, q?: Tx): Promise<Revie
   return { fromMs, toMs, deadlines, deadlinesMs, rows: reviewCandidates(facts, deadlinesMs, req.nowMs) };
 }
 
+/** Everything the review page draws (built by lib/services/build-review.ts). */
 export interface ReviewReport {
   fromMs: number;
   toMs: number;
@@ -56,29 +57,4 @@ export interface ReviewReport {
   trend: WeekPoint[];
   shifts: ShiftRow[];
   people: PersonRow[];
-}
-
-/** Everything the review page draws, from one scope load (see lib/data/review.ts for the queries). */
-export async function buildReviewReport(req: ReviewRequest): Promise<ReviewReport | null> {
-  const scope = await loadReviewScope(req);
-  if (!scope) return null;
-  const { rows, deadlinesMs } = scope;
-  const histograms = {} as Record<StepId, HistogramBin[]>;
-  for (const step of stepIds) histograms[step] = histogramOf(rows.map((r) => r.steps[step]), deadlinesMs[step]);
-  const [shifts, people] = await Promise.all([loadShifts(scope.fromMs, scope.toMs), loadPeople()]);
-  return {
-    fromMs: scope.fromMs,
-    toMs: scope.toMs,
-    nowMs: req.nowMs,
-    timeZone: req.timeZone,
-    deadlines: scope.deadlines,
-    deadlinesMs,
-    candidates: rows.length,
-    steps: summariseSteps(rows),
-    histograms,
-    trend: weeklyTrend(rows, scope.fromMs, Math.min(scope.toMs, req.nowMs + 1), req.timeZone),
-    // Shifts not yet begun have nothing to show.
-    shifts: shiftRows(rows, shifts.filter((s) => s.startsAtMs <= req.nowMs && (!req.shiftId || s.id === req.shiftId))),
-    people: personRows(rows, people),
-  };
 }

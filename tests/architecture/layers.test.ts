@@ -16,7 +16,6 @@ const queriesStillOutsideStorage = [
   "lib/auth/rate-limit.ts",
   "lib/auth/session.ts",
   "lib/feed/group-commit.ts",
-  "lib/review/handoff.ts",
 ];
 /** The configuration module: the one product file that reads the environment. */
 const configModule = "lib/env.ts";

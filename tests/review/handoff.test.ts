@@ -4,7 +4,8 @@ import { eq, inArray } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
 import { notifications, shifts } from "@/db/schema";
-import { handoffDedupeKey, queueDueHandoffs, type QueuedHandoffs } from "@/lib/review/handoff";
+import { handoffDedupeKey } from "@/lib/review/handoff";
+import { queueDueHandoffs, type QueuedHandoffs } from "@/lib/services/queue-handoffs";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { min, writeFixtureLog, type FixtureLog } from "./helpers/fixture-log";
 

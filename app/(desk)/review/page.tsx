@@ -10,7 +10,7 @@ import { loadPeople, loadShifts, loadSites } from "@/lib/data/review";
 import { formatClock, formatInZone } from "@/lib/format/time";
 import { reviewNowMs } from "@/lib/review/clock";
 import { dayInZone, resolveRange } from "@/lib/review/range";
-import { buildReviewReport } from "@/lib/review/report";
+import { buildReviewReport } from "@/lib/services/build-review";
 import { reviewSearchParams, toReviewRequest } from "@/lib/review/request";
 import { reviewQuerySchema, type ReviewQuery } from "@/lib/validations/review";
 

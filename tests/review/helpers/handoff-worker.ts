@@ -3,7 +3,7 @@
  * these at once; each answers what queueDueHandoffs did.
  */
 import { closeDb, getDb } from "@/db";
-import { queueDueHandoffs } from "@/lib/review/handoff";
+import { queueDueHandoffs } from "@/lib/services/queue-handoffs";
 
 await getDb();
 process.send?.({ ready: true });

@@ -2,7 +2,7 @@ import { ApiError } from "@/lib/api/errors";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { reviewNowMs } from "@/lib/review/clock";
-import { buildReviewReport } from "@/lib/review/report";
+import { buildReviewReport } from "@/lib/services/build-review";
 import { toReviewRequest } from "@/lib/review/request";
 import { reviewQuerySchema } from "@/lib/validations/review";
 
