@@ -9,7 +9,7 @@ import { toastRefusal } from "@/components/board/mutation-errors";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
 import { apiFetch } from "@/lib/api-client";
-import type { RegroupResult } from "@/lib/triggers/regroup";
+import type { RegroupResult } from "@/lib/services/regroup-triggers";
 import { TriggersTable, type TriggerRow } from "./triggers-table";
 
 export interface MergeOption {

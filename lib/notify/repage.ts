@@ -14,7 +14,7 @@ export interface HeadlineForPaging {
 }
 
 /**
- * The re-page rule for a trigger joining a candidate (lib/triggers/join.ts). The candidate was paged once, by its
+ * The re-page rule for a trigger joining a candidate (lib/services/join-trigger.ts). The candidate was paged once, by its
  * headline then; a joining trigger pages again only when the call-out ladder, judging the candidate's new headline
  * (its preferred trigger after the join), would reach people more loudly than it did for the headline before the
  * join: nobody → in the app → paged. That is what a lower false-alarm rate crossing a rule's threshold, or a stage

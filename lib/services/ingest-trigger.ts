@@ -9,7 +9,7 @@ import { diffHeadlines, revisionHeadline, type DerivedHeadline, type RevisionHea
 import { derivationSeed, toPhysicsInput } from "@/lib/feed/physics-input";
 import { eventKinds } from "@/lib/events/kinds";
 import { onCandidateIngested } from "@/lib/notify/hooks";
-import { joinCandidate } from "@/lib/triggers/join";
+import { joinCandidate } from "./join-trigger";
 import { settleCandidate } from "@/lib/triggers/settle";
 import type { FeedCandidate } from "@/lib/validations/feed";
 import { appendEvent } from "@/lib/data/events";

@@ -4,7 +4,7 @@ import { transitionCandidate } from "@/lib/services/move-card";
 import { POST as feedIngest } from "@/app/api/v1/feed/candidates/route";
 import { setNotifyClock } from "@/lib/notify/clock";
 import { candidateSteps } from "@/lib/review/timeline";
-import { splitTrigger } from "@/lib/triggers/regroup";
+import { splitTrigger } from "@/lib/services/regroup-triggers";
 import type { FeedCandidate } from "@/lib/validations/feed";
 import { feedRequest, samplePayload, setTestEnvironment } from "../feed/support/feed-helpers";
 import { createTestUser, setupTestDatabase, type TestDatabase } from "../helpers/test-db";

@@ -1,6 +1,6 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { mergeCandidates } from "@/lib/triggers/regroup";
+import { mergeCandidates } from "@/lib/services/regroup-triggers";
 import { mergeBodySchema } from "@/lib/validations/candidates";
 import { idParams } from "@/lib/validations/params";
 

@@ -1,10 +1,10 @@
 import type { GroupWrite } from "@/lib/feed/group-commit";
 import { appendEvent } from "@/lib/data/events";
-import type { IngestResult } from "@/lib/services/ingest-trigger";
+import type { IngestResult } from "./ingest-trigger";
 import { insertDerivedStatement, insertRevisionStatement, insertTriggerStatement, type NewCandidateRow } from "@/lib/data/ingest-sql";
 import { eventKinds } from "@/lib/events/kinds";
 import { onTriggerJoined } from "@/lib/notify/hooks";
-import { settleCandidate } from "./settle";
+import { settleCandidate } from "@/lib/triggers/settle";
 
 /**
  * A new trigger coincident with a live candidate (lib/data/triggers.ts findCoincidentCandidateId) joins it: the

@@ -19,7 +19,7 @@ import {
 } from "@/lib/data/triggers";
 import { eventKinds } from "@/lib/events/kinds";
 import { onCandidateMerged } from "@/lib/notify/hooks";
-import { settleCandidate } from "./settle";
+import { settleCandidate } from "@/lib/triggers/settle";
 
 export interface RegroupResult {
   fromCandidateId: string;
