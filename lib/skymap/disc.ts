@@ -19,7 +19,13 @@ export function forEachPixelInDisc(nside: number, centre: V3, cosRadius: number,
   const npix = 12 * nside * nside;
   const ncap = 2 * nside * (nside - 1);
 
-  for (let ring = 1; ring < 4 * nside; ring++) {
+  // only the rings between the disc's highest and lowest z can hold centres inside (one ring of margin each side)
+  const radius = Math.acos(Math.max(-1, Math.min(1, cosRadius)));
+  const theta0 = Math.acos(Math.max(-1, Math.min(1, z0)));
+  const firstRing = Math.max(1, Math.floor(ringOfZ(nside, Math.cos(Math.max(0, theta0 - radius)))) - 1);
+  const lastRing = Math.min(4 * nside - 1, Math.ceil(ringOfZ(nside, Math.cos(Math.min(Math.PI, theta0 + radius)))) + 1);
+
+  for (let ring = firstRing; ring <= lastRing; ring++) {
     let z: number, count: number, start: number, phase: number;
     if (ring < nside) {
       z = 1 - (ring * ring) / (3 * nside * nside);
@@ -65,4 +71,11 @@ export function forEachPixelInDisc(nside: number, centre: V3, cosRadius: number,
       if (interior || inside(j)) visit(start + (((j % count) + count) % count), z, (j + phase) * step);
     }
   }
+}
+
+/** Ring number (1 … 4·nside − 1, fractional) of height z: the inverse of the ring heights above. */
+function ringOfZ(nside: number, z: number): number {
+  if (z > 2 / 3) return nside * Math.sqrt(3 * (1 - z));
+  if (z >= -2 / 3) return nside * (2 - 1.5 * z);
+  return 4 * nside - nside * Math.sqrt(3 * (1 + z));
 }
