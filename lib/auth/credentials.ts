@@ -1,8 +1,7 @@
-import { eq } from "drizzle-orm";
 import type { BlockList } from "node:net";
 import { z } from "zod";
-import { getDb } from "@/db";
-import { users } from "@/db/schema";
+import type { User } from "@/db/schema";
+import { findUserByEmail } from "@/lib/data/accounts";
 import { config } from "@/lib/env";
 import { clientAddress, parseTrustedProxies } from "./client-address";
 import { hashPassword, verifyPassword } from "./password";
@@ -36,7 +35,7 @@ function dummyPasswordHash(): Promise<string> {
   return dummyHash;
 }
 
-export type SignInOutcome = { ok: true; user: typeof users.$inferSelect } | { ok: false; reason: "invalid" | "rate-limited" };
+export type SignInOutcome = { ok: true; user: User } | { ok: false; reason: "invalid" | "rate-limited" };
 
 /**
  * Checks an e-mail and password from whatever body next-auth accepted. Exactly one bcrypt comparison runs whether
@@ -51,8 +50,7 @@ export async function checkCredentials(
   if (!parsed.success) return { ok: false, reason: "invalid" };
   const { email, password } = parsed.data;
   if ((await signInRetryAfterSeconds(email, address)) > 0) return { ok: false, reason: "rate-limited" };
-  const db = await getDb();
-  const [user] = await db.select().from(users).where(eq(users.email, email)).limit(1);
+  const user = await findUserByEmail(email);
   const matches = await verify(password, user?.passwordHash ?? (await dummyPasswordHash()));
   if (!user || user.disabledAt || !matches) {
     await recordFailedSignIn(email, address);

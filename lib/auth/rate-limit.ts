@@ -1,6 +1,4 @@
-import { and, count, eq, gte, inArray, lt, min } from "drizzle-orm";
-import { getDb } from "@/db";
-import { signInAttempts } from "@/db/schema";
+import { clearFailures, countFailures, recordFailures } from "@/lib/data/accounts";
 
 /**
  * Failed sign-ins allowed within the window (common practice: a handful per quarter hour).
@@ -19,14 +17,9 @@ export const pairBucket = (email: string, address: string) => `pair:${normaliseE
 
 /** Seconds until this address may try this account again, or 0. */
 export async function signInRetryAfterSeconds(email: string, address: string, now = new Date()): Promise<number> {
-  const db = await getDb();
   const since = new Date(now.getTime() - signInLimits.windowMs);
   const buckets = [accountBucket(email), addressBucket(address), pairBucket(email, address)];
-  const rows = await db
-    .select({ bucket: signInAttempts.bucket, n: count(), oldest: min(signInAttempts.at) })
-    .from(signInAttempts)
-    .where(and(inArray(signInAttempts.bucket, buckets), gte(signInAttempts.at, since)))
-    .groupBy(signInAttempts.bucket);
+  const rows = await countFailures(buckets, since);
   const of = (bucket: string) => rows.find((r) => r.bucket === bucket);
   const waitFor = (row: (typeof rows)[number] | undefined) =>
     Math.max(1, Math.ceil(((row?.oldest?.getTime() ?? now.getTime()) + signInLimits.windowMs - now.getTime()) / 1000));
@@ -39,18 +32,11 @@ export async function signInRetryAfterSeconds(email: string, address: string, no
 }
 
 export async function recordFailedSignIn(email: string, address: string, now = new Date()): Promise<void> {
-  const db = await getDb();
-  await db.insert(signInAttempts).values([
-    { bucket: accountBucket(email), at: now },
-    { bucket: addressBucket(address), at: now },
-    { bucket: pairBucket(email, address), at: now },
-  ]);
   // Old rows are of no further use; prune a little on each write.
-  await db.delete(signInAttempts).where(lt(signInAttempts.at, new Date(now.getTime() - 2 * signInLimits.windowMs)));
+  await recordFailures([accountBucket(email), addressBucket(address), pairBucket(email, address)], now, new Date(now.getTime() - 2 * signInLimits.windowMs));
 }
 
 /** A successful sign-in forgives that address's failures on the account (others' stay counted). */
 export async function clearAccountFailures(email: string, address: string): Promise<void> {
-  const db = await getDb();
-  await db.delete(signInAttempts).where(eq(signInAttempts.bucket, pairBucket(email, address)));
+  await clearFailures(pairBucket(email, address));
 }

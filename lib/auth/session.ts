@@ -1,10 +1,8 @@
-import { eq } from "drizzle-orm";
 import { getServerSession } from "next-auth";
 import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { connection } from "next/server";
-import { getDb } from "@/db";
-import { users } from "@/db/schema";
+import { findUserById } from "@/lib/data/accounts";
 import { resolveApiToken } from "./api-tokens";
 import { buildAuthOptions } from "./options";
 import { hasRole, toSessionUser, type Role, type SessionUser } from "./roles";
@@ -12,8 +10,7 @@ import { hasRole, toSessionUser, type Role, type SessionUser } from "./roles";
 /** Reads the person behind a user id afresh, so a role change or a disabled account applies at once. */
 export async function loadSessionUser(userId: string): Promise<SessionUser | null> {
   if (!userId) return null;
-  const db = await getDb();
-  const [row] = await db.select().from(users).where(eq(users.id, userId)).limit(1);
+  const row = await findUserById(userId);
   if (!row || row.disabledAt) return null;
   return toSessionUser(row);
 }
