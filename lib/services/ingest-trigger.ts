@@ -4,7 +4,7 @@ import { getDb, isUniqueViolation, type Tx } from "@/db";
 import type { Trigger } from "@/db/schema";
 import type { DerivedForFeed } from "@/lib/feed/derive-messages";
 import { derivePool } from "@/lib/feed/derive-pool";
-import { createGroupCommitter, type GroupWrite } from "@/lib/feed/group-commit";
+import { createGroupCommitter, type GroupWrite } from "@/db/group-commit";
 import { diffHeadlines, revisionHeadline, type DerivedHeadline, type RevisionHeadline } from "@/lib/data/headline";
 import { derivationSeed, toPhysicsInput } from "@/lib/feed/physics-input";
 import { eventKinds } from "@/lib/events/kinds";

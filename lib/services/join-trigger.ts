@@ -1,4 +1,4 @@
-import type { GroupWrite } from "@/lib/feed/group-commit";
+import type { GroupWrite } from "@/db/group-commit";
 import { appendEvent } from "@/lib/data/events";
 import type { IngestResult } from "./ingest-trigger";
 import { insertDerivedStatement, insertRevisionStatement, insertTriggerStatement, type NewCandidateRow } from "@/lib/data/ingest-sql";

@@ -12,7 +12,6 @@ const storageStillCallingUp: string[] = [];
 /** Files outside storage that still build queries themselves (issue 12 moves their SQL into lib/data). */
 const queriesStillOutsideStorage = [
   "lib/auth/api-tokens.ts",
-  "lib/feed/group-commit.ts",
 ];
 /** The configuration module: the one product file that reads the environment. */
 const configModule = "lib/env.ts";

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { createGroupCommitter, type GroupWrite } from "@/lib/feed/group-commit";
+import { createGroupCommitter, type GroupWrite } from "@/db/group-commit";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 let testDb: TestDatabase;

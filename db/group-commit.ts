@@ -1,7 +1,7 @@
 import type { Client, InStatement, Transaction } from "@libsql/client";
 import { drizzle } from "drizzle-orm/libsql";
-import { getDb, type Database } from "@/db";
-import * as schema from "@/db/schema";
+import { getDb, type Database } from "./index";
+import * as schema from "./schema";
 
 interface Pending<I, R> {
   item: I;
