@@ -13,7 +13,7 @@ describe("Foucart, Hinderer & Nissanke 2018 Eq. 4 remnant mass", () => {
     expect(remnantMassFraction(6, 1.2, 0.9, 13)).toBeCloseTo(0.3041, 3);
   });
 
-  it("raises the bracket to δ = 1.761 (FHN 2018 Eq. 4 as recalled), not 1 + δ, matching an independent example", () => {
+  it("raises the bracket to δ = 1.761 (FHN 2018 Eq. 4), not 1 + δ, matching an independent implementation's example", () => {
     // A published implementation's documented example (5 M☉ non-spinning hole, 1.0 M☉ star of 15 km) gives a
     // remnant of 0.12265712 M☉ with baryon mass m_b = M (1 + 0.619 C + 0.1359 C²) (binding-energy fit it uses);
     // with an exponent of 1 + δ it would be about 0.036 M☉. Fraction = remnant / m_b.
