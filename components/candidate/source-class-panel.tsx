@@ -49,9 +49,10 @@ export function SourceClassPanel({ derived }: { derived: Partial<Derived> }) {
                     <span className={cn("block h-full", classColourClasses[c])} style={{ width: `${Math.max(0, p[c]) * 100}%` }} />
                   </span>
                 </td>
-                <td className="whitespace-nowrap text-right font-mono tabular-nums">
-                  {formatPercent(p[c])}
-                  {se ? <span className="text-xs text-faint"> ± {formatSePoints(se[c])}</span> : null}
+                <td className="text-right font-mono tabular-nums">
+                  <span className="whitespace-nowrap">{formatPercent(p[c])}</span>
+                  {/* On a phone the error goes under the number so the four columns fit in 390 px. */}
+                  {se ? <span className="block whitespace-nowrap text-xs text-faint sm:inline"> ± {formatSePoints(se[c])}</span> : null}
                 </td>
                 <td className="whitespace-nowrap text-right font-mono tabular-nums text-muted">{byClass ? formatPercent(byClass[c]) : "—"}</td>
               </tr>

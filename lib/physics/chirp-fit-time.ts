@@ -40,8 +40,14 @@ export const FULL_TRACK_STEP_TOLERANCE = 0.5;
 export function subsample(samples: Samples): Samples {
   const n = samples.t.length;
   if (n <= SUBSAMPLE_LIMIT) return samples;
-  const pick = (values: readonly number[]) =>
-    Array.from({ length: SUBSAMPLE_LIMIT }, (_, k) => values[Math.round((k * (n - 1)) / (SUBSAMPLE_LIMIT - 1))] as number);
+  // One plain loop over precomputed indices (Array.from with a callback was a measurable share of a 10⁵ fit).
+  const index = new Int32Array(SUBSAMPLE_LIMIT);
+  for (let k = 0; k < SUBSAMPLE_LIMIT; k++) index[k] = Math.round((k * (n - 1)) / (SUBSAMPLE_LIMIT - 1));
+  const pick = (values: readonly number[]) => {
+    const out = new Array<number>(SUBSAMPLE_LIMIT);
+    for (let k = 0; k < SUBSAMPLE_LIMIT; k++) out[k] = values[index[k] as number] as number;
+    return out;
+  };
   return { t: pick(samples.t), f: pick(samples.f), sigma: samples.sigma === undefined ? undefined : pick(samples.sigma) };
 }
 

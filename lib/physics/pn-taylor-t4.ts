@@ -48,8 +48,10 @@ export function bracketCoefficients(b: PnBinary): Float64Array {
   ]);
 }
 
-/** B(x) of the module comment for coefficients from bracketCoefficients. */
-export function taylorT4Bracket(x: number, c: Float64Array): number {
+const LN_16 = Math.log(16);
+
+/** B(x) of the module comment for coefficients from bracketCoefficients; `lnX` = ln x when the caller has it. */
+export function taylorT4Bracket(x: number, c: Float64Array, lnX: number = Math.log(x)): number {
   const v = Math.sqrt(x);
   const x2 = x * x;
   return (
@@ -58,7 +60,7 @@ export function taylorT4Bracket(x: number, c: Float64Array): number {
     (c[3] as number) * x * v +
     (c[4] as number) * x2 +
     (c[5] as number) * x2 * v +
-    ((c[6] as number) + (c[8] as number) * Math.log(16 * x)) * x2 * x +
+    ((c[6] as number) + (c[8] as number) * (LN_16 + lnX)) * x2 * x +
     (c[7] as number) * x2 * x * v
   );
 }
@@ -89,9 +91,10 @@ export function buildPnTable(binary: PnBinary): PnTable | null {
   const count = (LN_U_MAX - LN_U_MIN) * STEPS_PER_UNIT + 1;
   const h = 1 / STEPS_PER_UNIT;
   // dy/d ln u = −(64η/5) u x⁴ B(x), with x = e^y; u comes from the node's u times e^(h/2) or e^h (no exp of ln u).
+  // y is ln x already, so the bracket's ln(16x) needs no log of its own: one exp per evaluation.
   const rate = (u: number, y: number): number => {
     const x = Math.exp(y);
-    const b = taylorT4Bracket(x, c);
+    const b = taylorT4Bracket(x, c, y);
     const x2 = x * x;
     return b > 0 ? -k * u * x2 * x2 * b : Number.NaN;
   };

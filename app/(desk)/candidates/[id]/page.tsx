@@ -84,7 +84,7 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
       <Caution />
       {/* Two columns from xl. Below it one column in source order: the figures and the sky, then triage, class
           and tasks, and the history last (a phone at the telescope should not scroll past the audit log). */}
-      <div className="grid gap-4 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)] xl:grid-rows-[auto_1fr]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-4 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)] xl:grid-rows-[auto_1fr]">
         <div className="space-y-4 xl:col-start-1 xl:row-start-1">
           <Panel>
             <PanelTitle>Key numbers</PanelTitle>
