@@ -3,6 +3,7 @@ import { getDb, type Tx } from "@/db";
 import {
   candidates,
   followUpTasks,
+  siteObservers,
   sites,
   taskReports,
   users,
@@ -142,6 +143,23 @@ export async function readTaskHolder(
     .limit(1);
   if (!row) return null;
   return { state: row.state, claimedBy: row.claimerId ? { id: row.claimerId, name: row.claimerName ?? "someone" } : null };
+}
+
+/** A task's site and whether `userId` observes at it (null when there is no such task). */
+export async function readTaskSiteFor(
+  tx: Tx,
+  taskId: string,
+  userId: string,
+): Promise<{ siteId: string | null; siteCode: string | null; observesThere: boolean } | null> {
+  const [row] = await tx
+    .select({ siteId: followUpTasks.siteId, siteCode: sites.code, follows: siteObservers.userId })
+    .from(followUpTasks)
+    .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
+    .leftJoin(siteObservers, and(eq(siteObservers.siteId, followUpTasks.siteId), eq(siteObservers.userId, userId)))
+    .where(eq(followUpTasks.id, taskId))
+    .limit(1);
+  if (!row) return null;
+  return { siteId: row.siteId, siteCode: row.siteCode, observesThere: row.follows !== null };
 }
 
 export type TaskChanges = Partial<

@@ -11,19 +11,21 @@ import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { callRoute, createCaller, insertCandidate, type Caller } from "./helpers/api";
 
 let testDb: TestDatabase;
-const c = {} as Record<Role | "observer2", Caller>;
+const c = {} as Record<Role | "observer2" | "elsewhere", Caller>;
 let siteId: string;
 
 beforeAll(async () => {
   testDb = await setupTestDatabase();
   for (const role of ["shifter", "observer", "coordinator", "admin"] as const) c[role] = await createCaller(role);
   c.observer2 = await createCaller("observer", "Second Observer");
+  c.elsewhere = await createCaller("observer", "Observer Of No Site Here");
   const db = await getDb();
   const [site] = await db
     .insert(sites)
     .values({ code: "QTR", name: "Quarry Test Range (fictional)", latitudeDeg: -20, longitudeDeg: 30, elevationM: 900, fieldOfViewDeg2: 3 })
     .returning();
   siteId = site?.id ?? "";
+  await db.insert(siteObservers).values([{ siteId, userId: c.observer.user.id }, { siteId, userId: c.observer2.user.id }]);
 });
 afterAll(() => testDb.cleanup());
 
@@ -123,6 +125,24 @@ describe("a task's life", () => {
   });
 });
 
+describe("observers claim tasks at their own sites", () => {
+  it("refuses an observer of no such site with a 403 naming the site; any-site tasks and coordinators may", async () => {
+    const id = await openTask();
+    const refused = await callRoute(claimRoute, { caller: c.elsewhere, params: { id }, method: "POST" });
+    expect(refused.status).toBe(403);
+    expect(refused.json.error).toContain("QTR");
+    const db = await getDb();
+    const [untouched] = await db.select().from(followUpTasks).where(eq(followUpTasks.id, id));
+    expect(untouched).toMatchObject({ state: "open", claimedById: null });
+    expect((await callRoute(claimRoute, { caller: c.coordinator, params: { id }, method: "POST" })).status).toBe(200);
+
+    const candidateId = await insertCandidate({ triageState: "pursue" });
+    const anySite = await callRoute(createTasksRoute, { caller: c.shifter, params: { id: candidateId }, body: { tasks: [draft({ siteId: null })] } });
+    const anyId = (anySite.json.tasks as Array<{ id: string }>)[0]?.id ?? "";
+    expect((await callRoute(claimRoute, { caller: c.elsewhere, params: { id: anyId }, method: "POST" })).status).toBe(200);
+  });
+});
+
 describe("the follow-up board's filters", () => {
   it("filters by site, kind, candidate and mine", async () => {
     const id = await openTask();
@@ -147,12 +167,11 @@ describe("the follow-up board's filters", () => {
 describe("observers hear about new tasks at their sites", () => {
   it("queues a task message for the site's observer in the same transaction as the tasks, and none for others", async () => {
     const db = await getDb();
-    await db.insert(siteObservers).values({ siteId, userId: c.observer2.user.id });
     const id = await insertCandidate({ triageState: "pursue" });
     const res = await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft(), draft({ kind: "spectroscopy" })] } });
     expect(res.status).toBe(201);
     const rows = await db.select().from(notifications).where(and(eq(notifications.candidateId, id), eq(notifications.kind, "task-created")));
-    expect(new Set(rows.map((r) => r.userId))).toEqual(new Set([c.observer2.user.id]));
+    expect(new Set(rows.map((r) => r.userId))).toEqual(new Set([c.observer.user.id, c.observer2.user.id]));
     expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/New tasks: .*galaxy-targeted at QTR/); expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/spectroscopy at QTR/);
   });
 });
