@@ -2,7 +2,7 @@ import { readFile } from "node:fs/promises";
 import path from "node:path";
 import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "@/db";
-import { candidates, escalations, notifications, sites, users } from "@/db/schema";
+import { candidates, escalations, notifications, siteObservers, sites, users } from "@/db/schema";
 import { FeedGenerator } from "@/fakes/feed/generator";
 import { FeedRandom } from "@/fakes/feed/random";
 import { toSessionUser, type SessionUser } from "@/lib/auth/roles";
@@ -33,6 +33,13 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
   const observers = people.filter((p) => p.role === "observer");
   const coordinator = byEmail.get("cleo@chirpdesk.test");
   const siteRows = await db.select().from(sites);
+  // Observers claim tasks at their own sites only, so each task goes to one of its site's observers.
+  const follows = await db.select().from(siteObservers);
+  const observerOf = (siteId: string | null, turn: number): SessionUser => {
+    const own = observers.filter((o) => follows.some((f) => f.siteId === siteId && f.userId === o.id));
+    const pool = own.length > 0 ? own : observers;
+    return pool[turn % pool.length] as SessionUser;
+  };
   if (shifters.length === 0 || observers.length === 0 || !coordinator) return 0;
 
   const generator = new FeedGenerator({ seed: "demo-week", scenario: "mixed", sites: generatorSites(), trackSamples: 120 });
@@ -101,7 +108,7 @@ export async function seedPastCandidates(db: Database, now: Date): Promise<numbe
       new Date(at),
     ).finally(() => setNotifyClock(null));
     for (const [taskIndex, task] of tasks.entries()) {
-      const observer = observers[(index + taskIndex) % observers.length] as SessionUser;
+      const observer = observerOf(task.siteId, index + taskIndex);
       if (live) {
         if (taskIndex > 0) continue; // open, waiting for an observer
         let taskAt = Math.max(at + MINUTE, now.getTime() - (40 + rand() * 60) * MINUTE);
