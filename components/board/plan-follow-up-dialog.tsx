@@ -10,7 +10,7 @@ import { Dialog } from "@/components/ui/dialog";
 import { Field, Input, Select, Textarea } from "@/components/ui/field";
 import { taskKinds } from "@/db/schema/task-values";
 import { priorityLabels, taskKindLabels } from "@/lib/triage/task-states";
-import { createTasksBodySchema, type CreateTasksBody, type TaskDraft, type TaskDraftInput } from "@/lib/validations/tasks";
+import { anySite, type createTasksBodySchema, createTasksBodySchemaAt, taskWindowMaxAheadDays, type CreateTasksBody, type TaskDraft, type TaskDraftInput } from "@/lib/validations/tasks";
 import type { z } from "zod";
 
 export interface SiteOption {
@@ -41,7 +41,8 @@ export default function PlanFollowUpDialog({
 }) {
   const [busy, setBusy] = useState(false);
   const { register, control, handleSubmit, formState } = useForm<CreateTasksBody, unknown, z.output<typeof createTasksBodySchema>>({
-    resolver: zodResolver(createTasksBodySchema),
+    // The 7-day bound is checked against the clock at submit time, not at the dialog's first render.
+    resolver: (values, context, options) => zodResolver(createTasksBodySchemaAt(new Date()))(values, context, options),
     defaultValues: { tasks: [blankTask()] },
   });
   const { fields, append, remove } = useFieldArray({ control, name: "tasks" });
@@ -55,7 +56,7 @@ export default function PlanFollowUpDialog({
   };
   const errors = formState.errors.tasks;
   return (
-    <Dialog open onOpenChange={(open) => !open && onCancel()} title={`Go for follow-up: ${externalId}`} description="Plan the observations. Observers at each site see open tasks on the follow-up board.">
+    <Dialog open onOpenChange={(open) => !open && onCancel()} title={`Go for follow-up: ${externalId}`} description={`Plan the observations (windows within the next ${taskWindowMaxAheadDays} days). Observers at each site see open tasks on the follow-up board.`}>
       <form
         onSubmit={handleSubmit((values) => submit(values.tasks))}
         className="space-y-4"
@@ -76,7 +77,11 @@ export default function PlanFollowUpDialog({
               </Field>
               <Field label="Site" htmlFor={`task-${i}-site`} error={errors?.[i]?.siteId?.message}>
                 <Select id={`task-${i}-site`} {...register(`tasks.${i}.siteId`)}>
-                  <option value="">Any site</option>
+                  {/* No default: an untouched form names no site and is refused until one, or "any site", is chosen. */}
+                  <option value="" disabled>
+                    Choose a site…
+                  </option>
+                  <option value={anySite}>Any site</option>
                   {sites.map((s) => (
                     <option key={s.id} value={s.id}>
                       {s.code} · {s.name}

@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import type { TaskState } from "@/db/schema/tasks";
 import type { TaskCard } from "@/lib/data/tasks";
-import { formatWindow, isoUtc } from "@/lib/format/time";
+import { formatWindow, isoUtc, yearInZone } from "@/lib/format/time";
 import { priorityLabels, taskKindLabels, taskStateLabels } from "@/lib/triage/task-states";
 
 export interface TaskAction {
@@ -27,7 +27,8 @@ interface Props {
 
 
 export const TaskCardBody = memo(function TaskCardBody({ task, timeZone, actions, onAction }: Props) {
-  const window = formatWindow(task.windowStart, task.windowEnd, timeZone);
+  // The year only decides whether dates carry theirs; a render at New Year's midnight is the one imprecision.
+  const window = formatWindow(task.windowStart, task.windowEnd, timeZone, yearInZone(new Date(), timeZone));
   return (
     <div className="min-w-0 flex-1 space-y-1.5 text-xs">
       <div className="flex items-center gap-1.5">

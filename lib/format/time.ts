@@ -54,17 +54,24 @@ export function formatClock(instant: Date | number | string, timeZone: string, o
 
 /**
  * An observing window in the viewer's zone, "11-30 22:00 → 05:30 GMT-3" (the end's date is shown only when it falls
- * on another day than the start); "now → …" without a start, "… → open end" without an end; null with neither.
+ * on another day than the start; a date outside `thisYear` carries its year, "2027-01-02 22:00", so a window far
+ * ahead never reads as this year's); "now → …" without a start, "… → open end" without an end; null with neither.
  */
-export function formatWindow(start: Date | number | string | null, end: Date | number | string | null, timeZone: string): string | null {
+export function formatWindow(start: Date | number | string | null, end: Date | number | string | null, timeZone: string, thisYear: number): string | null {
   if (start === null && end === null) return null;
   const from = start === null ? null : zonedParts(start, timeZone, false);
   const to = end === null ? null : zonedParts(end, timeZone, false);
-  const monthDay = (p: ZonedParts) => p.date.slice(5);
-  const fromText = from ? `${monthDay(from)} ${from.time}` : "now";
+  const dayOf = (p: ZonedParts) => (p.date.startsWith(`${thisYear}-`) ? p.date.slice(5) : p.date);
+  const fromText = from ? `${dayOf(from)} ${from.time}` : "now";
   if (!to) return `${fromText}${from ? ` ${from.zone}` : ""} → open end`;
-  const toText = from && from.date === to.date ? to.time : `${monthDay(to)} ${to.time}`;
+  const toText = from && from.date === to.date ? to.time : `${dayOf(to)} ${to.time}`;
   return `${fromText} → ${toText} ${to.zone}`;
+}
+
+/** The calendar year of `instant` in `timeZone` (for `formatWindow`'s "this year"). */
+export function yearInZone(instant: Date | number, timeZone: string): number {
+  const p = zonedParts(instant, timeZone, false);
+  return p ? Number(p.date.slice(0, 4)) : new Date(instant).getUTCFullYear();
 }
 
 /** ISO 8601 UTC, for hover titles and machine-readable attributes. */

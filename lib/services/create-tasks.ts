@@ -8,7 +8,7 @@ import { findSiteIds, insertTasks } from "@/lib/data/tasks";
 import { readCandidateRow } from "@/lib/data/triggers";
 import { eventKinds } from "@/lib/events/kinds";
 import { onTasksCreated } from "@/lib/notify/hooks";
-import type { TaskDraft } from "@/lib/validations/tasks";
+import { windowAheadIssues, type TaskDraft } from "@/lib/validations/tasks";
 
 /**
  * Plans follow-up tasks for a candidate in Pursue: the tasks and their audit events, then paging tells observers
@@ -24,6 +24,8 @@ export async function createTasks(actor: SessionUser, candidateId: string, draft
     if (candidate.triageState !== "pursue") {
       throw new ApiError(422, "move the candidate to Pursue before planning follow-up", { triageState: candidate.triageState });
     }
+    const tooFar = windowAheadIssues(drafts, now);
+    if (tooFar.length) throw new ApiError(422, tooFar[0]?.message ?? "window too far ahead", { issues: tooFar });
     const siteIds = [...new Set(drafts.map((d) => d.siteId).filter((id): id is string => Boolean(id)))];
     const known = await findSiteIds(tx, siteIds);
     const missing = siteIds.filter((id) => !known.includes(id));

@@ -15,15 +15,23 @@ const optionalInstant = z
     return date;
   });
 
+/** The planning form's value for a task any site may take. */
+export const anySite = "any";
+/** How far ahead a task's window may reach: follow-up is for the coming nights, not a year from now. */
+export const taskWindowMaxAheadDays = 7;
+const dayMs = 86_400_000;
+
 /** One task of the follow-up planning form. */
 export const taskDraftSchema = z
   .object({
     kind: z.enum(taskKinds),
+    // A site, or an explicit "any site" ("any" from the form, null from scripts); never left unchosen.
     siteId: z
-      .string()
-      .optional()
+      .string({ error: 'choose a site, or "any site"' })
+      .trim()
+      .min(1, 'choose a site, or "any site"')
       .nullable()
-      .transform((v) => v || null),
+      .transform((v) => (v === null || v === anySite ? null : v)),
     windowStart: optionalInstant,
     windowEnd: optionalInstant,
     priority: z.coerce.number().int().min(1).max(3).default(2),
@@ -42,6 +50,27 @@ export const createTasksBodySchema = z.object({
   tasks: z.array(taskDraftSchema).min(1, "add at least one task").max(20),
 });
 export type CreateTasksBody = z.input<typeof createTasksBodySchema>;
+
+/** Windows reaching more than `taskWindowMaxAheadDays` past `now`, as field issues (`tasks.<i>.windowEnd`). */
+export function windowAheadIssues(drafts: Array<Pick<TaskDraft, "windowStart" | "windowEnd">>, now: Date): Array<{ path: string; message: string }> {
+  const limitMs = now.getTime() + taskWindowMaxAheadDays * dayMs;
+  const issues: Array<{ path: string; message: string }> = [];
+  drafts.forEach((d, i) => {
+    for (const key of ["windowStart", "windowEnd"] as const) {
+      const at = d[key];
+      if (at && at.getTime() > limitMs) {
+        issues.push({ path: `tasks.${i}.${key}`, message: `the window must lie within the next ${taskWindowMaxAheadDays} days` });
+      }
+    }
+  });
+  return issues;
+}
+
+/** The form's schema: the body schema plus the 7-day bound against the given clock. */
+export const createTasksBodySchemaAt = (now: Date) =>
+  createTasksBodySchema.superRefine((body, ctx) => {
+    for (const issue of windowAheadIssues(body.tasks, now)) ctx.addIssue({ code: "custom", path: issue.path.split(".").map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message: issue.message });
+  });
 
 /** POST /api/v1/tasks/:id/state: moves other than claiming and reporting. */
 export const taskStateBodySchema = z

@@ -113,12 +113,24 @@ describe("observing windows", () => {
     const { formatWindow } = await import("@/lib/format/time");
     const start = Date.UTC(2026, 10, 30, 10, 21);
     // Santiago keeps daylight-saving time, UTC−3, in the southern summer (tz database), so 10:21 UTC is 07:21 there.
-    expect(formatWindow(start, Date.UTC(2026, 10, 30, 12, 49), "America/Santiago")).toBe("11-30 07:21 → 09:49 GMT-3");
-    expect(formatWindow(start, Date.UTC(2026, 11, 2, 13, 49), "America/Santiago")).toBe("11-30 07:21 → 12-02 10:49 GMT-3");
+    expect(formatWindow(start, Date.UTC(2026, 10, 30, 12, 49), "America/Santiago", 2026)).toBe("11-30 07:21 → 09:49 GMT-3");
+    expect(formatWindow(start, Date.UTC(2026, 11, 2, 13, 49), "America/Santiago", 2026)).toBe("11-30 07:21 → 12-02 10:49 GMT-3");
     // The same pair of instants seen from Perth (UTC+8) starts at 18:21 and ends at 20:49 on the same day.
-    expect(formatWindow(start, Date.UTC(2026, 10, 30, 12, 49), "Australia/Perth")).toBe("11-30 18:21 → 20:49 GMT+8");
-    expect(formatWindow(null, Date.UTC(2026, 11, 2, 13, 49), "UTC")).toBe("now → 12-02 13:49 UTC");
-    expect(formatWindow(start, null, "UTC")).toBe("11-30 10:21 UTC → open end");
-    expect(formatWindow(null, null, "UTC")).toBeNull();
+    expect(formatWindow(start, Date.UTC(2026, 10, 30, 12, 49), "Australia/Perth", 2026)).toBe("11-30 18:21 → 20:49 GMT+8");
+    expect(formatWindow(null, Date.UTC(2026, 11, 2, 13, 49), "UTC", 2026)).toBe("now → 12-02 13:49 UTC");
+    expect(formatWindow(start, null, "UTC", 2026)).toBe("11-30 10:21 UTC → open end");
+    expect(formatWindow(null, null, "UTC", 2026)).toBeNull();
+  });
+
+  it("gives a date its year whenever that is not this year", async () => {
+    const { formatWindow, yearInZone } = await import("@/lib/format/time");
+    const start = Date.UTC(2026, 11, 31, 20, 0);
+    // 20:00 UTC on 31 December is already 05:00 on 1 January 2027 in Tokyo (UTC+9, no daylight saving).
+    expect(formatWindow(start, Date.UTC(2026, 11, 31, 22, 0), "UTC", 2026)).toBe("12-31 20:00 → 22:00 UTC");
+    expect(formatWindow(start, Date.UTC(2027, 0, 1, 2, 0), "UTC", 2026)).toBe("12-31 20:00 → 2027-01-01 02:00 UTC");
+    expect(formatWindow(null, Date.UTC(9999, 11, 31, 12, 0), "UTC", 2026)).toBe("now → 9999-12-31 12:00 UTC");
+    expect(formatWindow(start, null, "UTC", 2025)).toBe("2026-12-31 20:00 UTC → open end");
+    expect(yearInZone(start, "Asia/Tokyo")).toBe(2027);
+    expect(yearInZone(start, "UTC")).toBe(2026);
   });
 });

@@ -7,6 +7,7 @@ import { POST as claimRoute } from "@/app/api/v1/tasks/[id]/claim/route";
 import { POST as reportRoute } from "@/app/api/v1/tasks/[id]/report/route";
 import { GET as listRoute } from "@/app/api/v1/tasks/route";
 import { POST as stateRoute } from "@/app/api/v1/tasks/[id]/state/route";
+import { setPlanningClock } from "@/lib/triage/clock";
 import { setupTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { callRoute, createCaller, insertCandidate, type Caller } from "./helpers/api";
 
@@ -14,7 +15,11 @@ let testDb: TestDatabase;
 const c = {} as Record<Role | "observer2" | "elsewhere", Caller>;
 let siteId: string;
 
+// Planning happens the day before the drafts' windows, so the 7-day bound is measured from a fixed instant.
+const planningAtMs = Date.parse("2029-12-31T12:00:00Z");
+
 beforeAll(async () => {
+  setPlanningClock(() => planningAtMs);
   testDb = await setupTestDatabase();
   for (const role of ["shifter", "observer", "coordinator", "admin"] as const) c[role] = await createCaller(role);
   c.observer2 = await createCaller("observer", "Second Observer");
@@ -27,7 +32,10 @@ beforeAll(async () => {
   siteId = site?.id ?? "";
   await db.insert(siteObservers).values([{ siteId, userId: c.observer.user.id }, { siteId, userId: c.observer2.user.id }]);
 });
-afterAll(() => testDb.cleanup());
+afterAll(() => {
+  setPlanningClock(null);
+  return testDb.cleanup();
+});
 
 const draft = (over: Record<string, unknown> = {}) => ({ kind: "galaxy-targeted", siteId, windowStart: "2030-01-01T20:00:00Z", windowEnd: "2030-01-02T04:00:00Z", priority: 1, notes: "bright galaxies first", ...over });
 
@@ -67,6 +75,27 @@ describe("planning follow-up", () => {
     expect(JSON.stringify(backwards.json.issues)).toContain("tasks.0.windowEnd");
     expect((await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft({ siteId: "nowhere" })] } })).status).toBe(422);
     expect((await callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [] } })).status).toBe(422);
+  });
+
+  it("refuses an unchosen site and a window more than 7 days ahead, naming the field; null is an explicit any site", async () => {
+    const id = await insertCandidate({ triageState: "pursue" });
+    const plan = (over: Record<string, unknown>) => callRoute(createTasksRoute, { caller: c.shifter, params: { id }, body: { tasks: [draft(over)] } });
+    for (const siteless of [{ siteId: "" }, { siteId: undefined }]) {
+      const res = await plan(siteless);
+      expect(res.status).toBe(422);
+      expect(JSON.stringify(res.json.issues)).toContain("tasks.0.siteId");
+    }
+    const farEnd = await plan({ windowEnd: "2030-01-07T12:00:01Z" });
+    expect(farEnd.status).toBe(422);
+    expect(JSON.stringify(farEnd.json.issues)).toContain("tasks.0.windowEnd");
+    const year9999 = await plan({ windowStart: "9999-12-30T00:00:00Z", windowEnd: "9999-12-31T00:00:00Z" });
+    expect(year9999.status).toBe(422);
+    expect(JSON.stringify(year9999.json.issues)).toContain("tasks.0.windowStart");
+    expect((await plan({ windowEnd: "2030-01-07T12:00:00Z" })).status).toBe(201);
+    expect((await plan({ siteId: "any" })).status).toBe(201);
+    const db = await getDb();
+    const stored = await db.select().from(followUpTasks).where(eq(followUpTasks.candidateId, id));
+    expect(stored.map((t) => t.siteId).sort()).toEqual([null, siteId].sort());
   });
 });
 

@@ -87,6 +87,7 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     await page.getByRole("dialog").getByRole("button", { name: "Pursue" }).click();
     const plan = page.getByRole("dialog");
     await plan.locator("#task-0-kind").selectOption("spectroscopy");
+    await plan.locator("#task-0-site").selectOption("any");
     await plan.locator("#task-0-notes").fill("slit on the brightest host candidate");
     await plan.getByRole("button", { name: /Pursue and create 1 task/ }).click();
     await card(page, names.pursue, "pursue").waitFor({ timeout: 10_000 });

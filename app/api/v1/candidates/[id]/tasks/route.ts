@@ -3,6 +3,7 @@ import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
 import { listTasks } from "@/lib/data/tasks";
 import { createTasks } from "@/lib/services/create-tasks";
+import { planningNow } from "@/lib/triage/clock";
 import { createTasksBodySchema } from "@/lib/validations/tasks";
 import { idParams } from "@/lib/validations/params";
 
@@ -11,6 +12,6 @@ export const GET = handler({ roles: can.read, params: idParams }, async ({ user,
 
 /** Plans follow-up: creates one or several tasks for a candidate in Pursue. */
 export const POST = handler({ roles: can.planFollowUp, params: idParams, body: createTasksBodySchema }, async ({ user, body, params }) => {
-  const tasks = await createTasks(user, params.id, body.tasks);
+  const tasks = await createTasks(user, params.id, body.tasks, planningNow());
   return NextResponse.json({ tasks }, { status: 201 });
 });
