@@ -121,7 +121,14 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
         </span>
         {card.liveTaskCount > 0 ? <span className="text-xs text-accent">{card.liveTaskCount} task{card.liveTaskCount === 1 ? "" : "s"}</span> : null}
         <span className="ml-auto flex items-center gap-1.5">
-          {card.triageState === "new" ? <AckTimer receivedAt={card.receivedAt} deadlines={deadlines} /> : null}
+          {/* A withdrawn candidate's paging has stopped: it is never late, and the card says why it waits. */}
+          {card.withdrawn ? (
+            <span className="text-xs font-semibold text-alarm" data-testid="withdrawn-note">
+              Withdrawn · paging stopped
+            </span>
+          ) : card.triageState === "new" ? (
+            <AckTimer receivedAt={card.receivedAt} deadlines={deadlines} />
+          ) : null}
           {card.owner ? <Avatar name={card.owner.name} initials={card.owner.initials} /> : null}
         </span>
       </div>
@@ -157,6 +164,7 @@ export function DraggableTriageCard({ card, canDrag, ...props }: CardProps & { c
           aria-label={`Move candidate ${card.externalId}`}
           className="-ml-1 flex w-4 shrink-0 cursor-grab items-start justify-center rounded pt-0.5 text-faint hover:text-fg active:cursor-grabbing"
           data-testid="card-handle"
+          data-focus-handle
         >
           <GripVertical aria-hidden className="h-4 w-4" />
         </button>

@@ -43,7 +43,8 @@ const candidateOf = ({ facts: f }: CandidateReview): HandoffCandidate => ({
   externalId: f.externalId,
   stage: f.stage,
   dominantClass: f.dominantClass,
-  triageState: f.triageState,
+  // A withdrawn candidate is not waiting in its column: say "withdrawn" rather than its last triage state.
+  triageState: f.withdrawnAtMs !== null ? "withdrawn" : f.triageState,
   receivedAtMs: f.receivedAtMs,
 });
 
@@ -67,6 +68,8 @@ export function buildHandoffSummary(input: {
   const missed: MissedDeadline[] = [];
   const byStep = Object.fromEntries(stepIds.map((s) => [s, 0])) as Record<StepId, number>;
   for (const r of input.rows) {
+    // Withdrawn candidates count nowhere as late: their paging stopped when the feed withdrew them.
+    if (r.facts.withdrawnAtMs !== null) continue;
     for (const step of stepIds) {
       const t = r.steps[step];
       if (!t.overDeadline || t.durationMs === null || (t.status !== "done" && t.status !== "open")) continue;
