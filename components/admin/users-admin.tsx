@@ -125,7 +125,7 @@ export function UsersAdmin({ actor }: { actor: SessionUser }) {
           <UserPlus className="h-4 w-4" aria-hidden /> Add person
         </Button>
       </div>
-      <div className="overflow-x-auto rounded-lg border border-line bg-surface">
+      <div className="relative overflow-x-auto rounded-lg border border-line bg-surface">
         <DataTable table={table} caption="People and their roles" />
         {query.isLoading ? <p className="p-4 text-sm text-muted">Loading people…</p> : null}
         {query.isError ? <p className="p-4 text-sm text-alarm">Could not load people: {errorText(query.error)}</p> : null}

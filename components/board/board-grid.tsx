@@ -6,7 +6,7 @@ import { cn } from "@/components/ui/cn";
  */
 export function BoardGrid({ columns, children }: { columns: 5 | 6; children: React.ReactNode }) {
   return (
-    <div className="snap-x snap-mandatory overflow-x-auto pb-2 sm:snap-none">
+    <div className="relative snap-x snap-mandatory overflow-x-auto pb-2 sm:snap-none">
       <div
         className={cn(
           "grid h-[calc(100dvh-14rem)] min-h-[28rem] auto-cols-[85%] grid-flow-col gap-2.5 sm:auto-cols-auto sm:grid-flow-row",

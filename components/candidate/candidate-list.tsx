@@ -132,7 +132,7 @@ export function CandidateList({ initialPage, initialQuery, timeZone }: { initial
         <ChipFilter label="Stage" options={stages} labels={stageLabels} value={query.stage} onChange={(stage) => update({ stage })} />
         <ChipFilter label="Class" options={sourceClasses} labels={classLabels} value={query.class} onChange={(cls) => update({ class: cls })} />
       </div>
-      <div className="overflow-x-auto rounded-lg border border-line">
+      <div className="relative overflow-x-auto rounded-lg border border-line">
         <table className="w-full text-sm" aria-busy={isFetching}>
           <thead className="bg-surface text-left text-xs text-muted">
             {table.getHeaderGroups().map((group) => (

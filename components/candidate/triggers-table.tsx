@@ -31,7 +31,7 @@ function Diff({ text, title }: { text: string | null; title: string }) {
 export function TriggersTable({ rows, timeZone, action }: { rows: TriggerRow[]; timeZone: string; action?: (row: TriggerRow) => React.ReactNode }) {
   const preferred = rows.find((r) => r.preferred) ?? rows[0];
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="w-full text-sm" data-testid="triggers-table">
         <caption className="sr-only">Triggers grouped into this candidate; differences are against the preferred trigger</caption>
         <thead className="text-left text-xs text-muted">

@@ -33,7 +33,7 @@ export function FailedDeliveries({ timeZone }: { timeZone: string }) {
     );
   }
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="w-full text-sm" data-testid="failed-deliveries">
         <thead className="text-left text-xs uppercase tracking-wide text-muted">
           <tr>

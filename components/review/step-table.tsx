@@ -21,7 +21,7 @@ export function StepTable({
   onListLate: (step: StepId) => void;
 }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-surface">
+    <div className="relative overflow-x-auto rounded-lg border border-line bg-surface">
       <table className="w-full whitespace-nowrap text-sm" data-testid="step-table">
         <caption className="sr-only">Durations of each response step; pick a row to chart it</caption>
         <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">

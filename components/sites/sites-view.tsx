@@ -122,7 +122,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
             {canManage ? "Add the telescopes that take follow-up tasks: position, altitude limit, field of view and observers." : "Coordinators add sites with their position, altitude limit and field of view."}
           </EmptyState>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-line bg-surface">
+          <div className="relative overflow-x-auto rounded-lg border border-line bg-surface">
             <DataTable table={table} caption="Observing sites" testId="sites-table" />
             {query.isLoading ? <p className="p-4 text-sm text-muted">Loading sites…</p> : null}
             {query.isError ? <p className="p-4 text-sm text-alarm">Could not load sites: {errorText(query.error)}</p> : null}

@@ -27,7 +27,7 @@ export function TonightPanel({ timeZone }: { timeZone: string }) {
       {query.isLoading ? <p className="text-sm text-muted">Working out each site&apos;s night…</p> : null}
       {query.isError ? <p className="text-sm text-alarm">Could not work out tonight: {String(query.error)}</p> : null}
       {query.isSuccess ? (
-        <div className="overflow-x-auto rounded-lg border border-line bg-surface">
+        <div className="relative overflow-x-auto rounded-lg border border-line bg-surface">
           <table className="w-full text-sm" data-testid="tonight-table">
             <thead className="border-b border-line text-left text-xs text-muted">
               <tr>

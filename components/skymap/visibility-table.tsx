@@ -17,7 +17,7 @@ export function VisibilityTable({
     return <p className="text-sm text-muted">No observing sites are defined yet; coordinators add them on the Sites page.</p>;
   }
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="w-full text-sm" data-testid="visibility-table">
         <thead className="border-b border-line text-left text-xs uppercase tracking-wide text-muted">
           <tr>

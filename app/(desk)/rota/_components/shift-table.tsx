@@ -83,7 +83,7 @@ export function ShiftTable({
   );
   const table = useReactTable({ data: shifts, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="w-full text-sm" data-testid="rota-table">
         <thead className="text-left text-xs uppercase tracking-wide text-muted">
           {table.getHeaderGroups().map((group) => (

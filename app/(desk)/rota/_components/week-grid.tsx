@@ -37,7 +37,7 @@ export function WeekGrid({
   const overlapping = new Set(issues.flatMap((i) => (i.kind === "overlap" ? i.shiftIds : [])));
   const gaps: Span[] = issues.filter((i) => i.kind === "gap").map((g) => ({ startMs: Date.parse(g.from), endMs: Date.parse(g.to) }));
   return (
-    <div className="overflow-x-auto" data-testid="rota-week">
+    <div className="relative overflow-x-auto" data-testid="rota-week">
       <div className="grid min-w-[56rem] grid-cols-7 gap-1">
         {days.map((day) => (
           <div key={day.key}>
