@@ -4,7 +4,6 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useMemo, useState } from "react";
 import { useLiveEvents } from "@/components/live/live-store";
 import { moonIlluminatedFraction, moonPositionJ2000, sunPositionJ2000 } from "@/lib/astro";
-import { julianEphemerisDay } from "@/lib/astro/time";
 import { apiFetch } from "@/lib/api-client";
 import type { SkymapInfo } from "@/lib/data/skymaps";
 import type { CandidateVisibility } from "@/lib/data/visibility";
@@ -70,7 +69,7 @@ export function useSunMoonNow(): SunMoon | null {
     const moon = moonPositionJ2000(now);
     return {
       sun: sunPositionJ2000(now),
-      moon: { raDeg: moon.raDeg, decDeg: moon.decDeg, illumination: moonIlluminatedFraction(julianEphemerisDay(now)) },
+      moon: { raDeg: moon.raDeg, decDeg: moon.decDeg, illumination: moonIlluminatedFraction(now) },
       at: now,
     };
   }, [now]);

@@ -1,12 +1,5 @@
-/** Public surface of the astronomy library: Sun, Moon, sidereal time, altitudes, nights, site visibility. */
-export {
-  airmassToAltitudeDeg,
-  angularSeparationDeg,
-  eclipticToEquatorial,
-  equatorialToHorizontal,
-  precess,
-  type Equatorial,
-} from "./coords";
+/** Public surface of lib/astro (on astronomy-engine): Sun, Moon, sidereal time, altitudes, nights, site visibility. */
+export { airmassToAltitudeDeg, angularSeparationDeg, j2000ToOfDate, type Equatorial } from "./coords";
 export { moonApparent, moonIlluminatedFraction, moonPositionJ2000, type MoonPosition } from "./moon";
 export { comingNight, findCrossings, type Crossing, type Night, type NightOptions } from "./night";
 export {
@@ -19,13 +12,7 @@ export {
   type SiteLocation,
 } from "./site";
 export { sunApparent, sunPositionJ2000, type SunPosition } from "./sun";
-export {
-  dateFromJulianDay,
-  greenwichMeanSiderealTimeDeg,
-  julianDay,
-  julianEphemerisDay,
-  localSiderealTimeDeg,
-} from "./time";
+export { dateFromJulianDay, greenwichSiderealTimeDeg, julianDay, localSiderealTimeDeg } from "./time";
 export {
   siteVisibility,
   type ObservingWindow,

@@ -1,46 +1,9 @@
-import { type SiteLocation, sunAltitudeDeg } from "./site";
+import { SearchAltitude } from "astronomy-engine";
+import { Body, observerAt } from "./engine";
+import { sunAltitudeAtDeg } from "./schedule";
+import type { SiteLocation } from "./site";
 
-export interface Crossing {
-  time: Date;
-  /** True when the altitude goes from below the threshold to above it. */
-  rising: boolean;
-}
-
-const MINUTE_MS = 60_000;
-
-/**
- * Times where altitudeAt(t) crosses thresholdDeg between start and end: sign changes on a grid of
- * stepMinutes, each refined by bisection to under a second. Excursions shorter than a step can be missed.
- */
-export function findCrossings(
-  altitudeAt: (date: Date) => number,
-  start: Date,
-  end: Date,
-  thresholdDeg: number,
-  stepMinutes = 10,
-): Crossing[] {
-  const crossings: Crossing[] = [];
-  const stepMs = stepMinutes * MINUTE_MS;
-  let previousMs = start.getTime();
-  let previousAbove = altitudeAt(start) >= thresholdDeg;
-  while (previousMs < end.getTime()) {
-    const nextMs = Math.min(previousMs + stepMs, end.getTime());
-    const nextAbove = altitudeAt(new Date(nextMs)) >= thresholdDeg;
-    if (nextAbove !== previousAbove) {
-      let lo = previousMs;
-      let hi = nextMs;
-      while (hi - lo > 500) {
-        const mid = (lo + hi) / 2;
-        if ((altitudeAt(new Date(mid)) >= thresholdDeg) === previousAbove) lo = mid;
-        else hi = mid;
-      }
-      crossings.push({ time: new Date(Math.round((lo + hi) / 2)), rising: nextAbove });
-    }
-    previousMs = nextMs;
-    previousAbove = nextAbove;
-  }
-  return crossings;
-}
+export { findCrossings, type Crossing } from "./crossings";
 
 export interface Night {
   start: Date;
@@ -56,27 +19,26 @@ export interface NightOptions {
   sunAltitudeDeg?: number;
   /** How far ahead to look for the night to start, and for it to end; 24 h by default. */
   searchHours?: number;
-  stepMinutes?: number;
 }
 
 /**
  * The coming astronomical night at a site: the rest of the current night if the Sun is already below
  * −18°, else the next interval with the Sun below −18° starting within searchHours. Null when there is
- * none (for example summer at high latitude, when the Sun never gets 18° below the horizon).
+ * none (for example summer at high latitude, when the Sun never gets 18° below the horizon). The Sun's
+ * crossings come from astronomy-engine's SearchAltitude (geometric altitude of the Sun's centre).
  */
 export function comingNight(site: SiteLocation, now: Date, options: NightOptions = {}): Night | null {
   const limitDeg = options.sunAltitudeDeg ?? -18;
-  const searchMs = (options.searchHours ?? 24) * 3_600_000;
-  const step = options.stepMinutes ?? 10;
-  const sunAt = (date: Date) => sunAltitudeDeg(site, date);
-  const startsNow = sunAt(now) < limitDeg;
+  const searchDays = (options.searchHours ?? 24) / 24;
+  const observer = observerAt(site);
+  const startsNow = sunAltitudeAtDeg(site, now) < limitDeg;
   let start = now;
   if (!startsNow) {
-    const sunset = findCrossings(sunAt, now, new Date(now.getTime() + searchMs), limitDeg, step).find((c) => !c.rising);
+    const sunset = SearchAltitude(Body.Sun, observer, -1, now, searchDays, limitDeg);
     if (!sunset) return null;
-    start = sunset.time;
+    start = sunset.date;
   }
-  const cap = new Date(start.getTime() + searchMs);
-  const sunrise = findCrossings(sunAt, start, cap, limitDeg, step).find((c) => c.rising);
-  return { start, end: sunrise?.time ?? cap, startsNow, endCapped: !sunrise };
+  const cap = new Date(start.getTime() + searchDays * 86_400_000);
+  const sunrise = SearchAltitude(Body.Sun, observer, +1, start, searchDays, limitDeg);
+  return { start, end: sunrise?.date ?? cap, startsNow, endCapped: !sunrise };
 }

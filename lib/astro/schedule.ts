@@ -17,7 +17,7 @@ import {
   MakeTime,
 } from "astronomy-engine";
 import { angularSeparationDeg, DEG, type Equatorial } from "./coords";
-import { findCrossings } from "./night";
+import { findCrossings } from "./crossings";
 import type { SiteLocation } from "./site";
 
 export interface TimeInterval {

@@ -1,7 +1,8 @@
-import { DEG, type Equatorial, equatorialToHorizontal, precess } from "./coords";
-import { moonApparent } from "./moon";
-import { sunApparent } from "./sun";
-import { JD_J2000, julianDay, julianEphemerisDay, localSiderealTimeDeg, normaliseDeg } from "./time";
+/** Altitudes at a site, from astronomy-engine. Altitudes are geometric (no refraction). */
+import { Equator, Horizon } from "astronomy-engine";
+import type { Equatorial } from "./coords";
+import { Body, observerAt } from "./engine";
+import { sunAltitudeAtDeg, targetAltitudeDeg } from "./schedule";
 
 export interface Site {
   latDeg: number;
@@ -14,48 +15,26 @@ export interface Site {
 
 export type SiteLocation = Pick<Site, "latDeg" | "lonDeg" | "elevationM">;
 
-const EARTH_EQUATORIAL_RADIUS_KM = 6378.14;
+const AU_KM = 149_597_870.7;
 
-/** Geometric altitude (no refraction) of a position given in the equator and equinox of date. */
+/** Geometric altitude (no refraction) of a position given in the true equator and equinox of date. */
 export function altitudeOfDateDeg(position: Equatorial, site: SiteLocation, date: Date): number {
-  const hourAngle = localSiderealTimeDeg(julianDay(date), site.lonDeg) - position.raDeg;
-  return equatorialToHorizontal(hourAngle, position.decDeg, site.latDeg).altDeg;
+  return Horizon(date, observerAt(site), position.raDeg / 15, position.decDeg).altitude;
 }
 
-/**
- * Geometric altitude of a J2000 (ICRS) position: precession to date (Meeus ch. 21), mean sidereal
- * time (ch. 12), horizontal coordinates (ch. 13). Nutation and aberration are left out (< 30″).
- */
+/** Geometric altitude of a J2000 (ICRS) position (precession and nutation to date; no aberration, < 21″). */
 export function altitudeDeg(position: Equatorial, site: SiteLocation, date: Date): number {
-  return altitudeOfDateDeg(precess(position, JD_J2000, julianEphemerisDay(date)), site, date);
+  return targetAltitudeDeg(position, site, date);
 }
 
 export function sunAltitudeDeg(site: SiteLocation, date: Date): number {
-  return altitudeOfDateDeg(sunApparent(julianEphemerisDay(date)), site, date);
+  return sunAltitudeAtDeg(site, date);
 }
 
-/**
- * Topocentric equatorial position of the Moon (equinox of date): the observer's geocentric vector
- * (ρ sin φ′, ρ cos φ′ of Meeus ch. 11) subtracted from the Moon's — the vector form of Meeus ch. 40.
- */
+/** Topocentric apparent position of the Moon (true equator and equinox of date) and its distance. */
 export function moonTopocentric(site: SiteLocation, date: Date): Equatorial & { distanceKm: number } {
-  const moon = moonApparent(julianEphemerisDay(date));
-  const lat = site.latDeg * DEG;
-  const u = Math.atan(0.99664719 * Math.tan(lat));
-  const heightRatio = site.elevationM / (EARTH_EQUATORIAL_RADIUS_KM * 1000);
-  const rhoSin = 0.99664719 * Math.sin(u) + heightRatio * Math.sin(lat);
-  const rhoCos = Math.cos(u) + heightRatio * Math.cos(lat);
-  const lst = localSiderealTimeDeg(julianDay(date), site.lonDeg) * DEG;
-  const ra = moon.raDeg * DEG;
-  const dec = moon.decDeg * DEG;
-  const x = moon.distanceKm * Math.cos(dec) * Math.cos(ra) - EARTH_EQUATORIAL_RADIUS_KM * rhoCos * Math.cos(lst);
-  const y = moon.distanceKm * Math.cos(dec) * Math.sin(ra) - EARTH_EQUATORIAL_RADIUS_KM * rhoCos * Math.sin(lst);
-  const z = moon.distanceKm * Math.sin(dec) - EARTH_EQUATORIAL_RADIUS_KM * rhoSin;
-  return {
-    raDeg: normaliseDeg(Math.atan2(y, x) / DEG),
-    decDeg: Math.atan2(z, Math.hypot(x, y)) / DEG,
-    distanceKm: Math.hypot(x, y, z),
-  };
+  const moon = Equator(Body.Moon, date, observerAt(site), true, true);
+  return { raDeg: moon.ra * 15, decDeg: moon.dec, distanceKm: moon.dist * AU_KM };
 }
 
 export function moonAltitudeDeg(site: SiteLocation, date: Date): number {

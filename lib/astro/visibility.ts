@@ -1,8 +1,9 @@
-import { angularSeparationDeg, DEG, type Equatorial, precess } from "./coords";
+import { DEG, type Equatorial, j2000ToOfDate } from "./coords";
 import { moonIlluminatedFraction } from "./moon";
 import { comingNight } from "./night";
-import { moonTopocentric, type Site } from "./site";
-import { JD_J2000, julianDay, julianEphemerisDay, localSiderealTimeDeg } from "./time";
+import { moonSeparationDeg } from "./schedule";
+import type { Site } from "./site";
+import { localSiderealTimeDeg } from "./time";
 
 /** A probability sample of a sky region (J2000 / ICRS position). */
 export interface WeightedPosition extends Equatorial {
@@ -47,7 +48,8 @@ export interface SiteVisibility {
 /**
  * What a site can observe of a sky region during the coming astronomical night: the night is stepped
  * (10 min by default) and a sample counts as observable once its geometric altitude reaches the site's
- * limit (altitudes: Meeus ch. 12, 13, 21; Moon: ch. 40, 47, 48).
+ * limit (positions, precession, nutation and sidereal time from astronomy-engine; the altitude of each
+ * sample by sin(alt) = sin φ sin δ + cos φ cos δ cos H, Meeus eq. 13.6).
  */
 export function siteVisibility(input: SiteVisibilityInput): SiteVisibility {
   const { site, region, now } = input;
@@ -57,26 +59,24 @@ export function siteVisibility(input: SiteVisibilityInput): SiteVisibility {
   const regionProbability = region.reduce((sum, p) => sum + p.prob, 0);
   const peak = region.reduce<WeightedPosition | undefined>((best, p) => (!best || p.prob > best.prob ? p : best), undefined);
 
-  const jde = julianEphemerisDay(momentTime);
-  const moon = precess(moonTopocentric(site, momentTime), jde, JD_J2000);
   const base = {
     nightStart: night?.start ?? null,
     nightEnd: night?.end ?? null,
     nightEndCapped: night?.endCapped ?? false,
     regionProbability,
-    moonSeparationDeg: peak ? angularSeparationDeg(moon, peak) : Number.NaN,
-    moonIllumination: moonIlluminatedFraction(jde),
+    moonSeparationDeg: peak ? moonSeparationDeg(peak, site, momentTime) : Number.NaN,
+    moonIllumination: moonIlluminatedFraction(momentTime),
     momentTime,
   };
   if (!night || !(regionProbability > 0)) return { ...base, observableProbability: 0, bestWindow: null };
 
-  // Precess every sample once, to the middle of the night (the drift over one night is < 0.01″)
+  // Take every sample to the equator of date once, at the middle of the night (drift over a night < 0.1″)
   const count = region.length;
   const raDeg = new Float64Array(count);
   const sinDec = new Float64Array(count);
   const cosDec = new Float64Array(count);
   region.forEach((point, i) => {
-    const ofDate = precess(point, JD_J2000, jde);
+    const ofDate = j2000ToOfDate(point, momentTime);
     raDeg[i] = ofDate.raDeg;
     sinDec[i] = Math.sin(ofDate.decDeg * DEG);
     cosDec[i] = Math.cos(ofDate.decDeg * DEG);
@@ -89,7 +89,7 @@ export function siteVisibility(input: SiteVisibilityInput): SiteVisibility {
   const times: Date[] = [];
   const shares: number[] = [];
   for (let t = night.start.getTime(); ; t = Math.min(t + stepMs, night.end.getTime())) {
-    const lst = localSiderealTimeDeg(julianDay(new Date(t)), site.lonDeg);
+    const lst = localSiderealTimeDeg(new Date(t), site.lonDeg);
     let above = 0;
     for (let i = 0; i < count; i++) {
       // sin(alt) = sin φ sin δ + cos φ cos δ cos H  (Meeus eq. 13.6)

@@ -2,7 +2,7 @@ import { and, desc, eq, gte, inArray, isNull, ne } from "drizzle-orm";
 import { getDb } from "@/db";
 import { candidates, instruments, skymaps, uploads, type TaskKind } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import { comingNight, localSiderealTimeDeg, julianDay, siteVisibility, type SiteVisibility } from "@/lib/astro";
+import { comingNight, localSiderealTimeDeg, siteVisibility, type SiteVisibility } from "@/lib/astro";
 import { credibleRegionPoints } from "@/lib/skymap";
 import { footprintAreaDeg2 } from "@/lib/validations/instruments";
 import { listSites, type SiteRecord } from "./sites";
@@ -78,7 +78,7 @@ function toRow(site: SiteFields, v: SiteVisibility): SiteVisibilityRow {
   const band =
     v.nightStart && v.nightEnd
       ? {
-          lstStartDeg: localSiderealTimeDeg(julianDay(v.nightStart), site.longitudeDeg),
+          lstStartDeg: localSiderealTimeDeg(v.nightStart, site.longitudeDeg),
           // sidereal time runs 1.0027379 times faster than solar time (Meeus eq. 12.4, the linear term)
           lstSweepDeg: Math.min(360, ((v.nightEnd.getTime() - v.nightStart.getTime()) / 86_400_000) * 360.98564736629),
         }
