@@ -25,7 +25,7 @@ if (existsSync("scripts/worker.ts")) commands.push({ name: "worker", command: "t
 if (existsSync("fakes/feed/cli.ts") && process.env.DEV_FEED !== "0") {
   commands.push({
     name: "feed",
-    command: `tsx fakes/feed/cli.ts --rate ${process.env.DEV_FEED_RATE ?? "1/min"} --scenario mixed --url ${process.env.APP_URL}`,
+    command: `tsx fakes/feed/cli.ts --rate ${process.env.DEV_FEED_RATE ?? "6/h"} --scenario gentle --url ${process.env.APP_URL}`,
     prefixColor: "yellow",
   });
 }

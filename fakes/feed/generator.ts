@@ -5,7 +5,7 @@ import { drawSource, type FakeSource, type FakeSourceClass } from "./population"
 import { FeedRandom } from "./random";
 import { companionPlan, noiseSource } from "./signals";
 
-export const scenarios = ["mixed", "bns", "nsbh", "bbh", "early-warning", "malformed", "bad-signature"] as const;
+export const scenarios = ["gentle", "mixed", "bns", "nsbh", "bbh", "early-warning", "malformed", "bad-signature"] as const;
 export type Scenario = (typeof scenarios)[number];
 
 /** Our invented pipelines. */
@@ -35,6 +35,8 @@ export interface FeedPost {
   signing: Signing;
   /** statuses the route should answer */
   expectedStatuses: number[];
+  /** a demo sky map (file name among the generator's `skymapFiles`) to attach after the post is accepted */
+  skymapFile?: string;
 }
 
 export interface FeedGeneratorOptions {
@@ -44,7 +46,13 @@ export interface FeedGeneratorOptions {
   sites: readonly string[];
   /** samples per frequency track */
   trackSamples?: number;
+  /** demo sky-map files; about half of the signals (a new signal's lead report, a first look after a warning)
+   * get one of them, chosen by a generator of their own so the posts themselves do not change */
+  skymapFiles?: readonly string[];
 }
+
+/** Share of signals that carry a demo sky map. */
+export const skymapShare = 0.5;
 
 interface IssuedCandidate {
   source: string;
@@ -72,6 +80,7 @@ function externalIdFor(eventTimeMs: number, counter: number): string {
  */
 export class FeedGenerator {
   private readonly rng: FeedRandom;
+  private readonly skymapRng: FeedRandom;
   private readonly issued: IssuedCandidate[] = [];
   /** other pipelines' reports of the last new signal, sent on the next calls before anything else */
   private readonly companions: FeedPost[] = [];
@@ -79,6 +88,29 @@ export class FeedGenerator {
 
   constructor(private readonly options: FeedGeneratorOptions) {
     this.rng = new FeedRandom(`${options.seed}/${options.scenario}`);
+    this.skymapRng = new FeedRandom(`${options.seed}/${options.scenario}/skymaps`);
+  }
+
+  /** The gentle dev feed's next signal: another pipeline's report of the last one, else a new signal. */
+  nextSignal(nowMs: number): FeedPost {
+    const companion = this.companions.shift();
+    if (companion) return companion;
+    const roll = this.rng.next();
+    if (roll < 0.1) return this.earlyWarning(nowMs);
+    if (roll < 0.2) return this.noise(nowMs);
+    const r = this.rng.next();
+    return this.newCandidate(nowMs, r < 0.4 ? "bns" : r < 0.6 ? "nsbh" : "bbh");
+  }
+
+  /** The gentle dev feed's follow-up of an earlier signal: a warning's first look, a revision or a withdrawal. */
+  nextFollowUp(nowMs: number): FeedPost | null {
+    const waiting = this.issued.find((c) => c.awaitingFirstLook);
+    if (waiting) return this.firstLookAfterWarning(waiting, nowMs);
+    if (this.rng.chance(0.1)) {
+      const withdrawal = this.withdrawal(nowMs);
+      if (withdrawal) return withdrawal;
+    }
+    return this.pickRevision(1);
   }
 
   /** Whether the next post is another pipeline's report of the last new signal. */
@@ -91,6 +123,8 @@ export class FeedGenerator {
     const companion = this.companions.shift();
     if (companion) return companion;
     switch (this.options.scenario) {
+      case "gentle":
+        return this.nextSignal(nowMs);
       case "bns":
       case "nsbh":
       case "bbh":
@@ -133,6 +167,16 @@ export class FeedGenerator {
     if (this.issued.length > 30) this.issued.shift();
   }
 
+  /** About half of the signals get one of the demo sky maps (none without `skymapFiles`). */
+  private withSkymap(post: FeedPost): FeedPost {
+    const files = this.options.skymapFiles ?? [];
+    // Refused posts (bad bodies, bad signatures) have no candidate to attach a map to.
+    if (this.options.scenario === "malformed" || this.options.scenario === "bad-signature") return post;
+    if (files.length === 0 || !this.skymapRng.chance(skymapShare)) return post;
+    const skymapFile = this.skymapRng.pick(files);
+    return { ...post, skymapFile, description: `${post.description} + sky map ${skymapFile}` };
+  }
+
   private post(kind: FeedPost["kind"], description: string, payload: FeedCandidate): FeedPost {
     return { kind, description, rawBody: JSON.stringify(payload), payload, signing: "good", expectedStatuses: [201] };
   }
@@ -154,7 +198,7 @@ export class FeedGenerator {
     this.remember(candidate);
     const payload = this.payloadFor(candidate, "first-look", 1);
     // Scenarios that test signatures or bodies send one post per signal.
-    if (this.options.scenario === "mixed" || this.options.scenario === sourceClass) {
+    if (this.options.scenario === "mixed" || this.options.scenario === "gentle" || this.options.scenario === sourceClass) {
       for (const { source, offsetMs } of companionPlan(rng, fakeSources, candidate.source)) {
         const other: IssuedCandidate = { ...candidate, source, externalId: externalIdFor(eventTimeMs, this.counter++), eventTimeMs: eventTimeMs + offsetMs };
         this.remember(other);
@@ -162,7 +206,7 @@ export class FeedGenerator {
         this.companions.push(this.post("companion", `${source} also reports ${candidate.externalId} as ${other.externalId}`, body));
       }
     }
-    return this.post("new", `new ${sourceClass} ${candidate.externalId}`, payload);
+    return this.withSkymap(this.post("new", `new ${sourceClass} ${candidate.externalId}`, payload));
   }
 
   private noise(nowMs: number): FeedPost {
@@ -209,7 +253,7 @@ export class FeedGenerator {
     // If the merger has not happened yet when this goes out, the track still ends before now.
     const lastSample = sinceMergerS < 0 ? sinceMergerS - 1 : undefined;
     const payload = this.payloadFor(candidate, "first-look", 1, lastSample);
-    return this.post("early-warning-update", `first look after warning ${candidate.externalId} r${candidate.revision}`, payload);
+    return this.withSkymap(this.post("early-warning-update", `first look after warning ${candidate.externalId} r${candidate.revision}`, payload));
   }
 
   private pickRevision(probability: number): FeedPost | null {

@@ -41,6 +41,44 @@ export async function sendFeedPost(baseUrl: string, post: FeedPost, secret: stri
   return { status: response.status, body, elapsedMs: performance.now() - started };
 }
 
+/** The feed's sky-map route for a candidate it posted. */
+export function skymapPath(source: string, externalId: string): string {
+  return `${feedPath}/${encodeURIComponent(source)}/${encodeURIComponent(externalId)}/skymap`;
+}
+
+/** A multipart body holding one file in the `file` field, as bytes (the signature covers exactly these). */
+export async function multipartFile(name: string, bytes: Uint8Array): Promise<{ body: Uint8Array<ArrayBuffer>; contentType: string }> {
+  const form = new FormData();
+  form.append("file", new Blob([new Uint8Array(bytes)], { type: "application/fits" }), name);
+  const request = new Request("http://localhost/", { method: "POST", body: form });
+  return { body: new Uint8Array(await request.arrayBuffer()), contentType: request.headers.get("content-type") ?? "" };
+}
+
+/** Attaches a sky map to a posted candidate through the feed's sky-map route, signed at the moment of sending. */
+export async function sendSkymap(
+  baseUrl: string,
+  target: { source: string; externalId: string },
+  file: { name: string; bytes: Uint8Array },
+  secret: string,
+  now: () => number = Date.now,
+): Promise<PostOutcome> {
+  const started = performance.now();
+  const { body, contentType } = await multipartFile(file.name, file.bytes);
+  const response = await fetch(new URL(skymapPath(target.source, target.externalId), baseUrl), {
+    method: "POST",
+    headers: { "content-type": contentType, ...signFeedBody(secret, body, now()) },
+    body,
+  });
+  const text = await response.text();
+  let parsed: unknown = text;
+  try {
+    parsed = JSON.parse(text);
+  } catch {
+    // keep the text
+  }
+  return { status: response.status, body: parsed, elapsedMs: performance.now() - started };
+}
+
 const retryStatuses = new Set([502, 503, 504]);
 
 /** Waits `ms`, or less if the signal aborts; leaves no listener behind either way. */
