@@ -7,3 +7,4 @@ export * from "./paging";
 export * from "./uploads";
 export * from "./settings";
 export * from "./instruments";
+export * from "./observations";

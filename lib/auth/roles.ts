@@ -22,6 +22,10 @@ export const can = {
   triage: ["shifter", "coordinator"],
   planFollowUp: ["shifter", "coordinator"],
   claimTask: ["observer", "coordinator"],
+  /** log exposures (observers only for tasks they hold or their sites' instruments, checked by the service) */
+  recordObservations: ["shifter", "observer", "coordinator"],
+  /** report a transient found in follow-up */
+  reportCounterparts: ["shifter", "observer", "coordinator"],
   manageRota: ["coordinator", "admin"],
   manageUsers: ["coordinator", "admin"],
   manageSites: ["coordinator", "admin"],

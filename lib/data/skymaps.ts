@@ -16,6 +16,7 @@ import {
   toDisplayGrid,
   type DisplayGrid,
   type SkymapErrorCode,
+  type SkymapMap,
 } from "@/lib/skymap";
 import { readStored, storeBytes, storeDerived, storedExists, storedPath, type StoredFile } from "@/lib/storage";
 import { maxSkymapBytes, type SkymapUploadAnswer } from "@/lib/validations/skymaps";
@@ -262,6 +263,11 @@ export async function skymapDistanceAt(id: string, raDeg: number, decDeg: number
   const index = pixelLocator(map)(raDeg, decDeg);
   const moments = index < 0 ? null : pixelDistance(map.distance, index);
   return moments ? { meanMpc: moments.meanMpc, stdMpc: moments.stdMpc } : null;
+}
+
+/** The parsed map of a stored sky map at native resolution (coverage, searched regions), cached per process. */
+export function readSkymapMap(sha256: string): SkymapMap {
+  return mapCache.get(sha256, () => loadSkymap(readFileSync(storedPath(sha256)), { maxBytes: maxSkymapBytes }).map);
 }
 
 /** The stored display grid's bytes (HPXG); rebuilt from the FITS file if the derived file went missing. */

@@ -23,6 +23,8 @@ export const eventKinds = {
   escalationFired: "escalation.fired", // data: { step, target }
   notificationFailed: "notification.failed", // data: { notificationId, channel, userId }
   pageFailing: "page.failing", // a page still retrying after repeated failures; data: { notificationId, channel, userId, attempts, error, escalatedStep }
+  observationsRecorded: "observation.recorded", // data: { count, via: "api" | "csv" | "tick", siteIds }
+  counterpartReported: "counterpart.reported", // data: { counterpartId, name, raDeg, decDeg }
   skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
   reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }
   siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }

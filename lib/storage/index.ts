@@ -13,3 +13,4 @@ export {
   type StoredFile,
 } from "./file-store";
 export { parseMultipart, requireMultipart, singleFile, type MultipartBody, type UploadedPart } from "./multipart";
+export { readTextUpload } from "./text-upload";

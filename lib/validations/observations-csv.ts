@@ -79,3 +79,8 @@ function splitLine(line: string): string[] {
   cells.push(cell);
   return cells;
 }
+
+/** An upload of MAX_CSV_ROWS rows of every column stays well under this (about 120 bytes a row). */
+export const MAX_CSV_BYTES = 4 * 1024 * 1024;
+/** The multipart field the file travels in. */
+export const observationCsvField = "file";

@@ -1,0 +1,60 @@
+import { asc, eq, inArray } from "drizzle-orm";
+import { getDb, type Tx } from "@/db";
+import { followUpTasks, instruments, observations, siteObservers, type Instrument, type NewObservation, type Observation } from "@/db/schema";
+
+/** Storage of the observation log: queries only; the service decides who may write and what a row means. */
+
+export interface TaskForRecording {
+  id: string;
+  candidateId: string;
+  siteId: string | null;
+  claimedById: string | null;
+}
+
+export async function readTaskForRecording(tx: Tx, taskId: string): Promise<TaskForRecording | null> {
+  const [row] = await tx
+    .select({ id: followUpTasks.id, candidateId: followUpTasks.candidateId, siteId: followUpTasks.siteId, claimedById: followUpTasks.claimedById })
+    .from(followUpTasks)
+    .where(eq(followUpTasks.id, taskId))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function findInstrumentsByIds(tx: Tx, ids: readonly string[]): Promise<Instrument[]> {
+  if (ids.length === 0) return [];
+  return tx.select().from(instruments).where(inArray(instruments.id, [...ids]));
+}
+
+export async function instrumentsAtSite(tx: Tx, siteId: string): Promise<Instrument[]> {
+  return tx.select().from(instruments).where(eq(instruments.siteId, siteId)).orderBy(asc(instruments.name), asc(instruments.id));
+}
+
+/** The sites a person observes at. */
+export async function sitesObservedBy(tx: Tx, userId: string): Promise<string[]> {
+  const rows = await tx.select({ siteId: siteObservers.siteId }).from(siteObservers).where(eq(siteObservers.userId, userId));
+  return rows.map((r) => r.siteId);
+}
+
+/** Inserts the rows in one statement per 200 (SQLite's bound-parameter limit), answering the ids in row order. */
+export async function insertObservations(tx: Tx, rows: NewObservation[]): Promise<string[]> {
+  const ids: string[] = [];
+  for (let i = 0; i < rows.length; i += 200) {
+    const batch = rows.slice(i, i + 200).map((row) => ({ ...row, id: row.id ?? crypto.randomUUID() }));
+    await tx.insert(observations).values(batch);
+    ids.push(...batch.map((row) => row.id));
+  }
+  return ids;
+}
+
+/** A candidate's whole log, oldest start first (the coverage service orders by end time itself). */
+export async function listCandidateObservations(candidateId: string, tx?: Tx): Promise<Observation[]> {
+  const q = tx ?? (await getDb());
+  return q.select().from(observations).where(eq(observations.candidateId, candidateId)).orderBy(asc(observations.startTime), asc(observations.createdAt));
+}
+
+/** A task's own observations, oldest start first (the task view); null when there is no such task. */
+export async function listTaskObservations(taskId: string): Promise<Observation[] | null> {
+  const db = await getDb();
+  if (!(await readTaskForRecording(db, taskId))) return null;
+  return db.select().from(observations).where(eq(observations.taskId, taskId)).orderBy(asc(observations.startTime));
+}
