@@ -8,3 +8,4 @@ export * from "./uploads";
 export * from "./settings";
 export * from "./instruments";
 export * from "./observations";
+export * from "./plans";

@@ -21,6 +21,8 @@ export function toSessionUser(row: SessionUser): SessionUser {
 export const can = {
   triage: ["shifter", "coordinator"],
   planFollowUp: ["shifter", "coordinator"],
+  /** pointing plans: shifters and coordinators for any site, observers for their own sites' instruments (checked in the service) */
+  planPointings: ["shifter", "observer", "coordinator"],
   claimTask: ["observer", "coordinator"],
   /** log exposures (observers only for tasks they hold or their sites' instruments, checked by the service) */
   recordObservations: ["shifter", "observer", "coordinator"],

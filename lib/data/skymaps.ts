@@ -242,6 +242,11 @@ export async function getSkymap(id: string): Promise<SkymapInfo> {
   return toInfo(row);
 }
 
+/** A stored map at its native resolution: the FITS file parsed once per process, then kept in the SkymapCache. */
+export function storedSkymapMap(sha256: string): SkymapMap {
+  return mapCache.get(sha256, () => loadSkymap(readFileSync(storedPath(sha256)), { maxBytes: maxSkymapBytes }).map);
+}
+
 /**
  * Probability inside a cone at the map's native resolution: the stored FITS file is re-read (once per process,
  * then kept in a SkymapCache keyed by sha256). Pixel-centre inclusion, as lib/skymap/cone.ts explains.

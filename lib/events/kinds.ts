@@ -29,6 +29,8 @@ export const eventKinds = {
   reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }
   siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }
   instrumentChanged: "instrument.changed", // data: { instrumentId, siteId, name, action: "created" | "updated" | "deleted" }
+  planCreated: "plan.created", // data: { planId, siteId, instrumentId, taskId, pointings, scheduled, scheduledProbability }
+  pointingDone: "plan.pointing-done", // data: { planId, pointingId, index, done: boolean }
   shiftChanged: "shift.changed", // data: { shiftId, action: "created" | "updated" | "deleted" }
   settingsChanged: "settings.changed", // data: { key }
   userChanged: "user.changed", // data: { userId, action }

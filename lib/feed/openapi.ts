@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
 import { networkSiteCodes } from "./network";
+import { planPaths, planSchemas } from "./openapi-plans";
 import { candidateDetailSchema, derivedSchema, errorSchema, ingestAnswerSchema } from "./openapi-schemas";
 import { signatureToleranceSeconds } from "./signature";
 
@@ -16,7 +17,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
       title: "Chirpdesk API",
       version: "1",
       description:
-        "The candidate feed and candidate reads. Detector site codes of the configured (fictional) network: " +
+        "The candidate feed, candidate reads and pointing plans. Detector site codes of the configured (fictional) network: " +
         `${networkSiteCodes().join(", ")}; any 1–4 character uppercase code is accepted.`,
     },
     ...(serverUrl ? { servers: [{ url: serverUrl }] } : {}),
@@ -104,6 +105,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
           },
         },
       },
+      ...planPaths(),
       "/api/v1/openapi.json": {
         get: {
           summary: "This document",
@@ -123,6 +125,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
         IngestAnswer: ingestAnswerSchema,
         CandidateDetail: candidateDetailSchema,
         Error: errorSchema,
+        ...planSchemas(),
       },
     },
   };

@@ -93,3 +93,30 @@ function safeZone(timeZone: string): string {
     return "UTC";
   }
 }
+
+/**
+ * ISO 8601 with the zone's offset at that instant ("2030-03-20T21:15:00-03:00"; "Z" in UTC), to the second:
+ * a site's local time in machine-readable form. An unknown zone falls back to UTC.
+ */
+export function isoInZone(instant: Date | number | string, timeZone: string): string {
+  const date = new Date(instant);
+  if (Number.isNaN(date.getTime())) return "";
+  const zone = safeZone(timeZone);
+  const parts = Object.fromEntries(isoFormatter(zone).formatToParts(date).map((p) => [p.type, p.value]));
+  const wall = Date.UTC(Number(parts.year), Number(parts.month) - 1, Number(parts.day), Number(parts.hour), Number(parts.minute), Number(parts.second));
+  const offsetMin = Math.round((wall - Math.floor(date.getTime() / 1000) * 1000) / 60_000);
+  const sign = offsetMin < 0 ? "-" : "+";
+  const abs = Math.abs(offsetMin);
+  const offset = offsetMin === 0 ? "Z" : `${sign}${String(Math.floor(abs / 60)).padStart(2, "0")}:${String(abs % 60).padStart(2, "0")}`;
+  return `${parts.year}-${parts.month}-${parts.day}T${parts.hour}:${parts.minute}:${parts.second}${offset}`;
+}
+
+const isoFormatters = new Map<string, Intl.DateTimeFormat>();
+function isoFormatter(timeZone: string): Intl.DateTimeFormat {
+  let formatter = isoFormatters.get(timeZone);
+  if (!formatter) {
+    formatter = new Intl.DateTimeFormat("en-US", { timeZone, year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit", hourCycle: "h23" });
+    isoFormatters.set(timeZone, formatter);
+  }
+  return formatter;
+}

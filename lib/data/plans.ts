@@ -1,0 +1,146 @@
+import { and, asc, desc, eq, inArray, isNull, ne } from "drizzle-orm";
+import type { Tx } from "@/db";
+import {
+  planPointings,
+  plans,
+  siteObservers,
+  sites,
+  users,
+  type Footprint,
+  type NewPlan,
+  type NewPlanPointing,
+  type Plan,
+  type PlanPointing,
+} from "@/db/schema";
+
+/** Storage of pointing plans: queries only; the services decide what a missing row means. */
+
+/** A footprint placed on the sky (what the planner leaves out under `avoid`). */
+export interface PlacedTileRow {
+  raDeg: number;
+  decDeg: number;
+  footprint: Footprint;
+}
+
+/** A site as planning needs it: position, limits, zone and the Moon distance to keep. */
+export interface PlanSiteRow {
+  id: string;
+  code: string;
+  name: string;
+  latitudeDeg: number;
+  longitudeDeg: number;
+  elevationM: number;
+  minAltitudeDeg: number;
+  timeZone: string;
+}
+
+export interface StoredPlan {
+  plan: Plan;
+  site: { id: string; code: string; name: string; timeZone: string } | null;
+  createdBy: { id: string; name: string } | null;
+  pointings: Array<PlanPointing & { doneBy: { id: string; name: string } | null }>;
+}
+
+const INSERT_CHUNK = 100;
+
+export async function readPlanSite(tx: Tx, siteId: string): Promise<PlanSiteRow | null> {
+  const [row] = await tx
+    .select({
+      id: sites.id,
+      code: sites.code,
+      name: sites.name,
+      latitudeDeg: sites.latitudeDeg,
+      longitudeDeg: sites.longitudeDeg,
+      elevationM: sites.elevationM,
+      minAltitudeDeg: sites.minAltitudeDeg,
+      timeZone: sites.timeZone,
+    })
+    .from(sites)
+    .where(eq(sites.id, siteId))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function observesAtSite(tx: Tx, siteId: string, userId: string): Promise<boolean> {
+  const [row] = await tx
+    .select({ userId: siteObservers.userId })
+    .from(siteObservers)
+    .where(and(eq(siteObservers.siteId, siteId), eq(siteObservers.userId, userId)))
+    .limit(1);
+  return Boolean(row);
+}
+
+/** Every pointing of the candidate's open plans (not closed), except `exceptPlanId`'s: the sky other plans take. */
+export async function openPlanTiles(tx: Tx, candidateId: string, exceptPlanId?: string): Promise<PlacedTileRow[]> {
+  const where = [eq(plans.candidateId, candidateId), isNull(plans.closedAt)];
+  if (exceptPlanId) where.push(ne(plans.id, exceptPlanId));
+  return tx
+    .select({ raDeg: planPointings.raDeg, decDeg: planPointings.decDeg, footprint: plans.footprint })
+    .from(planPointings)
+    .innerJoin(plans, eq(plans.id, planPointings.planId))
+    .where(and(...where))
+    .orderBy(asc(plans.createdAt), asc(planPointings.planId), asc(planPointings.index));
+}
+
+/**
+ * Footprints already observed for the candidate, which a new plan leaves out unless `avoid` is "none".
+ * Returns nothing until observations are stored; the observations work fills this in.
+ */
+export async function observedFootprints(_tx: Tx, _candidateId: string): Promise<PlacedTileRow[]> {
+  return [];
+}
+
+/** Writes a plan and its pointings (call inside the service's transaction). */
+export async function insertPlan(tx: Tx, plan: NewPlan, pointings: Array<Omit<NewPlanPointing, "planId">>): Promise<Plan> {
+  const [row] = await tx.insert(plans).values(plan).returning();
+  if (!row) throw new Error("plan insert returned nothing");
+  for (let i = 0; i < pointings.length; i += INSERT_CHUNK) {
+    await tx.insert(planPointings).values(pointings.slice(i, i + INSERT_CHUNK).map((p) => ({ ...p, planId: row.id })));
+  }
+  return row;
+}
+
+/** Plans with their site, author and pointings (by index, each with who ticked it), in the given plan order. */
+async function readStoredPlans(tx: Tx, planRows: Array<{ plan: Plan; site: StoredPlan["site"] | null; createdBy: StoredPlan["createdBy"] }>): Promise<StoredPlan[]> {
+  if (planRows.length === 0) return [];
+  const ids = planRows.map((r) => r.plan.id);
+  const rows = await tx
+    .select({ pointing: planPointings, doneById: users.id, doneByName: users.name })
+    .from(planPointings)
+    .leftJoin(users, eq(users.id, planPointings.doneById))
+    .where(inArray(planPointings.planId, ids))
+    .orderBy(asc(planPointings.planId), asc(planPointings.index));
+  const byPlan = new Map<string, StoredPlan["pointings"]>(ids.map((id) => [id, []]));
+  for (const r of rows) {
+    byPlan.get(r.pointing.planId)?.push({ ...r.pointing, doneBy: r.doneById ? { id: r.doneById, name: r.doneByName ?? "someone" } : null });
+  }
+  return planRows.map((r) => ({ plan: r.plan, site: r.site?.id ? r.site : null, createdBy: r.createdBy?.id ? r.createdBy : null, pointings: byPlan.get(r.plan.id) ?? [] }));
+}
+
+function selectPlans(tx: Tx) {
+  return tx
+    .select({
+      plan: plans,
+      site: { id: sites.id, code: sites.code, name: sites.name, timeZone: sites.timeZone },
+      createdBy: { id: users.id, name: users.name },
+    })
+    .from(plans)
+    .leftJoin(sites, eq(sites.id, plans.siteId))
+    .leftJoin(users, eq(users.id, plans.createdById));
+}
+
+export async function readPlan(tx: Tx, planId: string): Promise<StoredPlan | null> {
+  const rows = await selectPlans(tx).where(eq(plans.id, planId)).limit(1);
+  return (await readStoredPlans(tx, rows))[0] ?? null;
+}
+
+/** A candidate's plans, newest first. */
+export async function listCandidatePlans(tx: Tx, candidateId: string): Promise<StoredPlan[]> {
+  return readStoredPlans(tx, await selectPlans(tx).where(eq(plans.candidateId, candidateId)).orderBy(desc(plans.createdAt), desc(plans.id)));
+}
+
+/** Plans attached to any of these tasks, newest first. */
+export async function listTaskPlans(tx: Tx, taskIds: string[]): Promise<StoredPlan[]> {
+  if (taskIds.length === 0) return [];
+  return readStoredPlans(tx, await selectPlans(tx).where(inArray(plans.taskId, taskIds)).orderBy(desc(plans.createdAt), desc(plans.id)));
+}
