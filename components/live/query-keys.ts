@@ -6,6 +6,8 @@ export const queryKeys = {
   candidates: ["candidates"] as const,
   candidate: (id: string) => ["candidate", id] as const,
   notes: (id: string) => ["notes", id] as const,
+  coverage: (id: string) => ["coverage", id] as const,
+  counterparts: (id: string) => ["counterparts", id] as const,
 };
 
 export type QueryKey = readonly unknown[];
@@ -23,6 +25,15 @@ export function keysForEvent(event: EventLike): QueryKey[] {
   if (event.kind === "candidate.note-added") {
     if (event.candidateId) keys.push(queryKeys.notes(event.candidateId));
     return [...keys, ...candidate];
+  }
+  if (event.kind === "observation.recorded") {
+    // A task's log grew: the candidate's coverage and the task cards.
+    return event.candidateId ? [queryKeys.coverage(event.candidateId), queryKeys.tasks, ...candidate] : [queryKeys.tasks];
+  }
+  if (event.kind === "counterpart.reported") return event.candidateId ? [queryKeys.counterparts(event.candidateId), ...candidate] : [];
+  if (event.kind === "skymap.uploaded") {
+    // Coverage and searched regions are computed on the newest map.
+    return event.candidateId ? [queryKeys.coverage(event.candidateId), queryKeys.counterparts(event.candidateId), ...candidate] : [];
   }
   if (event.kind.startsWith("candidate.")) {
     // A withdrawal cancels tasks, a revision changes task cards' candidate stage: refresh tasks too.

@@ -23,4 +23,15 @@ describe("which queries a live event refreshes", () => {
     expect(keysForEvent(event(eventKinds.shiftChanged, null))).toEqual([["roster"]]);
     expect(keysForEvent(event(eventKinds.pageQueued))).toEqual([]);
   });
+
+  it("a recorded observation refreshes that candidate's coverage and the task cards; a counterpart its list", () => {
+    expect(keysForEvent(event(eventKinds.observationsRecorded, "c3", "t2"))).toEqual([["coverage", "c3"], ["tasks"], ["candidate", "c3"]]);
+    expect(keysForEvent(event(eventKinds.counterpartReported, "c3"))).toEqual([["counterparts", "c3"], ["candidate", "c3"]]);
+  });
+
+  it("a new sky map recomputes coverage and counterpart ranks (both are read on the newest map)", () => {
+    const keys = keysForEvent(event(eventKinds.skymapUploaded, "c4"));
+    expect(keys).toContainEqual(["coverage", "c4"]);
+    expect(keys).toContainEqual(["counterparts", "c4"]);
+  });
 });
