@@ -1,10 +1,10 @@
 "use client";
 
 import { DndContext, DragOverlay, KeyboardSensor, PointerSensor, useSensor, useSensors, type DragEndEvent, type UniqueIdentifier } from "@dnd-kit/core";
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { usePathname, useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { queryKeys } from "@/components/live/query-keys";
 import type { TaskState } from "@/db/schema/tasks";
 import { taskStates } from "@/db/schema/task-values";
@@ -20,8 +20,10 @@ import type { SiteOption } from "./plan-follow-up-dialog";
 import { DraggableTaskCard, TaskCardBody } from "./task-card";
 import { TaskColumn } from "./task-column";
 import { TaskFilters, type TaskFilterValues } from "./task-filters";
+import { useFocusAfterMove } from "./use-focus-after-move";
 import { taskActionsFor } from "./task-moves";
-import { useTaskMutation } from "./use-task-mutations";
+import { keepNewerCards } from "./order-safe";
+import { pendingTaskIds, useTaskMutation } from "./use-task-mutations";
 
 const TaskTextDialog = dynamic(() => import("./task-dialogs"), { ssr: false });
 
@@ -48,15 +50,21 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
   const [filters, setFilters] = useState(initialFilters);
   const query = toQuery(filters);
   const [initialQuery] = useState(() => toQuery(initialFilters));
+  const queryClient = useQueryClient();
   const { data: tasks = [] } = useQuery({
     queryKey: [...queryKeys.tasks, query],
-    queryFn: () => apiFetch<TaskCard[]>(`/api/v1/tasks?${query}`),
+    // Order-safe: a refetch never puts back an older card, nor one whose move is still on its way.
+    queryFn: async () =>
+      keepNewerCards(await apiFetch<TaskCard[]>(`/api/v1/tasks?${query}`), queryClient.getQueryData<TaskCard[]>([...queryKeys.tasks, query]), pendingTaskIds(queryClient)),
     initialData: query === initialQuery ? initialTasks : undefined,
     placeholderData: (previous) => previous,
   });
   const mutation = useTaskMutation(viewer);
   const [activeId, setActiveId] = useState<string | null>(null);
   const [textFor, setTextFor] = useState<{ task: TaskCard; mode: "report" | "cancel" } | null>(null);
+  const focusTask = useFocusAfterMove("data-task-id");
+  /** whether the drag in progress was started from the keyboard (its drop keeps focus on the card) */
+  const keyboardDrag = useRef(false);
 
   const applyFilters = (next: TaskFilterValues) => {
     setFilters(next);
@@ -71,7 +79,9 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
     return grouped;
   }, [tasks]);
 
-  const act = (task: TaskCard, to: TaskState) => {
+  /** A move from a card's button or a keyboard drop keeps focus on the card in its new column; a mouse drop does not. */
+  const act = (task: TaskCard, to: TaskState, keepFocus = true) => {
+    if (keepFocus && to !== "reported" && to !== "cancelled") focusTask(task.id, to);
     if (to === "claimed") mutation.mutate({ task, move: { kind: "claim" } });
     else if (to === "reported") setTextFor({ task, mode: "report" });
     else if (to === "cancelled") setTextFor({ task, mode: "cancel" });
@@ -102,7 +112,7 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
     keyboard.end();
     const task = byId.get(String(a.id));
     const to = over ? (String(over.id).split(":")[1] as TaskState) : null;
-    if (task && to && to !== task.state && taskActionsFor(task, viewer).some((x) => x.to === to)) act(task, to);
+    if (task && to && to !== task.state && taskActionsFor(task, viewer).some((x) => x.to === to)) act(task, to, keyboardDrag.current);
   };
 
   return (
@@ -113,7 +123,8 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
         sensors={sensors}
         collisionDetection={keyboard.collisionDetection}
         accessibility={{ announcements }}
-        onDragStart={({ active: a }) => {
+        onDragStart={({ active: a, activatorEvent }) => {
+          keyboardDrag.current = typeof KeyboardEvent !== "undefined" && activatorEvent instanceof KeyboardEvent;
           setActiveId(String(a.id));
           keyboard.begin(`column:${byId.get(String(a.id))?.state ?? "open"}`);
         }}
@@ -154,6 +165,7 @@ export function FollowUpBoard({ initialTasks, initialFilters, sites, viewer }: {
           onCancel={() => setTextFor(null)}
           onConfirm={(text) => {
             const { task, mode } = textFor;
+            focusTask(task.id, mode === "report" ? "reported" : "cancelled");
             setTextFor(null);
             mutation.mutate({ task, move: mode === "report" ? { kind: "report", result: text } : { kind: "state", to: "cancelled", reason: text } });
           }}

@@ -94,6 +94,7 @@ export function DraggableTaskCard(props: Props) {
           {...attributes}
           aria-label={`Move ${taskKindLabels[props.task.kind]} task for ${props.task.candidate.externalId}`}
           className="-ml-1 flex w-4 shrink-0 cursor-grab items-start justify-center pt-0.5 text-faint hover:text-fg"
+          data-focus-handle
         >
           <GripVertical aria-hidden className="h-4 w-4" />
         </button>

@@ -11,10 +11,10 @@ import {
   type DragStartEvent,
   type UniqueIdentifier,
 } from "@dnd-kit/core";
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
-import { useCallback, useEffect, useMemo, useState, useSyncExternalStore } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
 import { toast } from "sonner";
 import { stageLabels } from "@/components/candidate/stage-badge";
 import { useLiveEvents } from "@/components/live/live-store";
@@ -33,12 +33,14 @@ import { boardAnnouncements, screenReaderInstructions } from "./announcements";
 import { createKeyboardTargets } from "./keyboard-targets";
 import { ProgressiveCards } from "./progressive-cards";
 import { toastRefusal } from "./mutation-errors";
+import { useFocusAfterMove } from "./use-focus-after-move";
 import type { SiteOption } from "./plan-follow-up-dialog";
 import { RosterStrip } from "./roster-strip";
 import { DraggableTriageCard, TriageCardBody } from "./triage-card";
 import { TriageColumn } from "./triage-column";
 import { setServerNow } from "./use-now";
-import { useTriageMutations } from "./use-triage-mutations";
+import { keepNewerCards } from "./order-safe";
+import { pendingCardIds, useTriageMutations } from "./use-triage-mutations";
 
 // Forms load on first use, keeping the board's first-load script small.
 const DismissDialog = dynamic(() => import("./dismiss-dialog"), { ssr: false });
@@ -61,6 +63,8 @@ interface Viewer {
 interface Pending {
   card: BoardCard;
   via: TriageVia;
+  /** the move came from the keyboard or the card menu: focus follows the card to its new column */
+  keepFocus: boolean;
 }
 
 export function TriageBoard({
@@ -76,7 +80,17 @@ export function TriageBoard({
 }) {
   const router = useRouter();
   const canTriage = hasRole(viewer, can.triage);
-  const { data: board } = useQuery({ queryKey: queryKeys.board, queryFn: () => apiFetch<BoardData>("/api/v1/board"), initialData: initialBoard });
+  const queryClient = useQueryClient();
+  const { data: board } = useQuery({
+    queryKey: queryKeys.board,
+    // Order-safe: a refetch never puts back an older card, nor one whose move is still on its way.
+    queryFn: async () => {
+      const fresh = await apiFetch<BoardData>("/api/v1/board");
+      const cached = queryClient.getQueryData<BoardData>(queryKeys.board);
+      return { ...fresh, cards: keepNewerCards(fresh.cards, cached?.cards, pendingCardIds(queryClient)) };
+    },
+    initialData: initialBoard,
+  });
   const { data: roster } = useQuery({ queryKey: queryKeys.roster, queryFn: () => apiFetch<Roster>("/api/v1/roster"), initialData: initialRoster });
   const { move, assign } = useTriageMutations();
   const [activeId, setActiveId] = useState<string | null>(null);
@@ -84,6 +98,9 @@ export function TriageBoard({
   const [dismissing, setDismissing] = useState<Pending | null>(null);
   const [planning, setPlanning] = useState<Pending | null>(null);
   const ready = useHydrated();
+  const focusCard = useFocusAfterMove("data-card-id");
+  /** whether the drag in progress was started from the keyboard (its drop keeps focus on the card) */
+  const keyboardDrag = useRef(false);
 
   useEffect(() => setServerNow(board.serverNow), [board.serverNow]);
 
@@ -110,27 +127,32 @@ export function TriageBoard({
   );
 
   const requestMove = useCallback(
-    (card: BoardCard, to: TriageState, via: TriageVia) => {
+    (card: BoardCard, to: TriageState, via: TriageVia, keepFocus: boolean) => {
       if (to === card.triageState) return;
       if (!canTransition(card.triageState, to)) {
         toast.warning(`Cannot move from “${triageLabels[card.triageState]}” to “${triageLabels[to]}”`);
         return;
       }
-      if (to === "dismissed") setDismissing({ card, via });
-      else if (to === "pursue") setPlanning({ card, via });
-      else move.mutate({ card, to, via });
+      if (to === "dismissed") setDismissing({ card, via, keepFocus });
+      else if (to === "pursue") setPlanning({ card, via, keepFocus });
+      else {
+        if (keepFocus) focusCard(card.id, to);
+        move.mutate({ card, to, via });
+      }
     },
-    [move],
+    [move, focusCard],
   );
   const requestAssign = useCallback(
-    (card: BoardCard, person: RosterPerson | null, via: TriageVia) => {
+    (card: BoardCard, person: RosterPerson | null, via: TriageVia, keepFocus: boolean) => {
       if ((card.owner?.id ?? null) === (person?.id ?? null)) return;
+      if (keepFocus) focusCard(card.id, card.triageState);
       assign.mutate({ card, person, via });
     },
-    [assign],
+    [assign, focusCard],
   );
 
-  const onDragStart = ({ active }: DragStartEvent) => {
+  const onDragStart = ({ active, activatorEvent }: DragStartEvent) => {
+    keyboardDrag.current = typeof KeyboardEvent !== "undefined" && activatorEvent instanceof KeyboardEvent;
     const card = byId.get(String(active.id));
     setActiveId(String(active.id));
     keyboard.begin(card ? `column:${card.triageState}` : null);
@@ -141,8 +163,8 @@ export function TriageBoard({
     const card = byId.get(String(active.id));
     if (!card || !over) return;
     const [kind, id] = String(over.id).split(":") as [string, string];
-    if (kind === "column") requestMove(card, id as TriageState, "board");
-    if (kind === "person") requestAssign(card, peopleById.get(id) ?? null, "board");
+    if (kind === "column") requestMove(card, id as TriageState, "board", keyboardDrag.current);
+    if (kind === "person") requestAssign(card, peopleById.get(id) ?? null, "board", keyboardDrag.current);
   };
 
   const announcements = useMemo(
@@ -179,6 +201,7 @@ export function TriageBoard({
   const actionsCard = actionsFor ? (byId.get(actionsFor) ?? null) : null;
 
   const submitPlan = async (pending: Pending, tasks: TaskDraft[]) => {
+    if (pending.keepFocus) focusCard(pending.card.id, "pursue");
     try {
       await move.mutateAsync({ card: pending.card, to: "pursue", via: pending.via });
     } catch {
@@ -257,19 +280,23 @@ export function TriageBoard({
           onClose={() => setActionsFor(null)}
           onMove={(card, to) => {
             setActionsFor(null);
-            requestMove(card, to, "menu");
+            requestMove(card, to, "menu", true);
           }}
           onAssign={(card, person) => {
             setActionsFor(null);
-            requestAssign(card, person, "menu");
+            requestAssign(card, person, "menu", true);
           }}
         />
       ) : null}
       {dismissing ? (
         <DismissDialog
           externalId={dismissing.card.externalId}
-          onCancel={() => setDismissing(null)}
+          onCancel={() => {
+            if (dismissing.keepFocus) focusCard(dismissing.card.id, dismissing.card.triageState);
+            setDismissing(null);
+          }}
           onConfirm={(reason) => {
+            if (dismissing.keepFocus) focusCard(dismissing.card.id, "dismissed");
             move.mutate({ card: dismissing.card, to: "dismissed", reason, via: dismissing.via });
             setDismissing(null);
           }}
@@ -280,7 +307,10 @@ export function TriageBoard({
           candidateId={planning.card.id}
           externalId={planning.card.externalId}
           sites={sites}
-          onCancel={() => setPlanning(null)}
+          onCancel={() => {
+            if (planning.keepFocus) focusCard(planning.card.id, planning.card.triageState);
+            setPlanning(null);
+          }}
           onSubmit={(tasks) => submitPlan(planning, tasks)}
         />
       ) : null}

@@ -1,6 +1,6 @@
 "use client";
 
-import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useMutation, useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { toast } from "sonner";
 import { queryKeys } from "@/components/live/query-keys";
 import type { Candidate, TriageState } from "@/db/schema/candidates";
@@ -9,6 +9,15 @@ import type { BoardCard, BoardData } from "@/lib/data/candidates";
 import type { RosterPerson } from "@/lib/data/triage";
 import { triageLabels, type TriageVia } from "@/lib/triage/transitions";
 import { toastRefusal } from "./mutation-errors";
+import { confirmCard, pendingMoveIds } from "./order-safe";
+
+/** Every move and assignment of a board card carries this key; the board's refetches keep those cards. */
+export const triageMoveKey = ["triage-move"] as const;
+
+/** Candidates with a move or an assignment on its way to the server. */
+export function pendingCardIds(queryClient: QueryClient): Set<string> {
+  return pendingMoveIds(queryClient.getMutationCache().findAll({ mutationKey: triageMoveKey }));
+}
 
 interface MoveVars {
   card: BoardCard;
@@ -42,15 +51,26 @@ export function useTriageMutations() {
   };
   const confirm = (result: Result) =>
     queryClient.setQueryData<BoardData>(queryKeys.board, (data) =>
-      patchCard(data, result.candidate.id, (c) => ({ ...c, version: result.candidate.version, triageState: result.candidate.triageState })),
+      data && { ...data, cards: confirmCard(data.cards, result.candidate, { triageState: result.candidate.triageState }) },
     );
-  const settle = () => queryClient.invalidateQueries({ queryKey: queryKeys.board });
+  // Not awaited: the move counts as answered now, so the refetch's cards are taken (when not older).
+  const settle = () => {
+    void queryClient.invalidateQueries({ queryKey: queryKeys.board });
+  };
+  /** The card's version as the cache has it now (a move queued behind another sends the version that one left). */
+  const versionOf = (card: BoardCard) => {
+    const cached = queryClient.getQueryData<BoardData>(queryKeys.board)?.cards.find((c) => c.id === card.id);
+    return Math.max(card.version, cached?.version ?? 0);
+  };
+  // One write at a time, in the order made: the second waits for the first's answer (and its version).
+  const serial = { mutationKey: triageMoveKey, scope: { id: "triage-moves" } };
 
   const move = useMutation({
+    ...serial,
     mutationFn: ({ card, to, reason, via }: MoveVars) =>
       apiFetch<Result>(`/api/v1/candidates/${card.id}/triage`, {
         method: "POST",
-        json: { to, reason, via, expectedVersion: card.version },
+        json: { to, reason, via, expectedVersion: versionOf(card) },
       }),
     onMutate: ({ card, to }) =>
       optimistic(card.id, (c) => ({ ...c, triageState: to, updatedAt: Date.now(), acknowledgedAt: c.acknowledgedAt ?? Date.now() })),
@@ -66,10 +86,11 @@ export function useTriageMutations() {
   });
 
   const assign = useMutation({
+    ...serial,
     mutationFn: ({ card, person, via }: AssignVars) =>
       apiFetch<Result>(`/api/v1/candidates/${card.id}/assign`, {
         method: "POST",
-        json: { ownerId: person?.id ?? null, via, expectedVersion: card.version },
+        json: { ownerId: person?.id ?? null, via, expectedVersion: versionOf(card) },
       }),
     onMutate: ({ card, person }) =>
       optimistic(card.id, (c) => ({ ...c, owner: person ? { id: person.id, name: person.name, initials: person.initials } : null })),

@@ -64,6 +64,14 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     const spoken = (await liveRegion.textContent()) ?? "";
     check(/dropped on column In review/.test(spoken), `the drop was announced; heard “${spoken}”`);
     ctx.log("keyboard drag moved the card to In review and was announced");
+    await expectFocusOn(page, "data-card-id", names.keys, "reviewing", "after a keyboard drop");
+    // Focus is usable, not just present: Space picks the same card up again, Escape puts it back.
+    await page.keyboard.press("Space");
+    await heard(new RegExp(`Picked up candidate ${names.keys}|candidate ${names.keys} is over column In review`));
+    await page.evaluate(() => new Promise((resolve) => setTimeout(resolve, 50)));
+    await page.keyboard.press("Escape");
+    await expectFocusOn(page, "data-card-id", names.keys, "reviewing", "after a cancelled keyboard drag");
+    ctx.log("focus stayed on the moved card after the keyboard drop");
     await card(other, names.keys, "reviewing").waitFor({ timeout: 15_000 });
 
     // The button equivalent: ⋯ → Dismissed → reason.
@@ -72,7 +80,8 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     await page.locator("#dismiss-reason").fill("scattered light in N1");
     await page.getByRole("dialog").getByRole("button", { name: "Dismiss" }).click();
     await card(page, names.menu, "dismissed").waitFor({ timeout: 10_000 });
-    ctx.log("the card menu dismissed a candidate with a reason");
+    await expectFocusOn(page, "data-card-id", names.menu, "dismissed", "after a dismissal from the card menu");
+    ctx.log("the card menu dismissed a candidate with a reason; focus followed the card");
 
     // Everything persists across a reload.
     await page.reload();
@@ -105,8 +114,11 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
       const claimed = obs.locator('[data-column="claimed"]').getByTestId("task-card").filter({ hasText: names.pursue });
       await claimed.filter({ hasText: "Bram Osei" }).waitFor({ timeout: 10_000 });
       ctx.log("the observer claimed the task by dragging it");
-      await claimed.getByRole("button", { name: "Start observing" }).click();
+      await claimed.getByRole("button", { name: "Start observing" }).focus();
+      await obs.keyboard.press("Enter");
       const observing = obs.locator('[data-column="observing"]').getByTestId("task-card").filter({ hasText: names.pursue });
+      await observing.waitFor({ timeout: 10_000 });
+      await expectFocusOn(obs, "data-task-id", names.pursue, "observing", "after Start observing from the keyboard");
       await observing.getByRole("button", { name: "Report" }).click();
       await obs.locator("#task-text").fill("no new point source in the slit");
       await obs.getByRole("dialog").getByRole("button", { name: "Report" }).click();
@@ -126,6 +138,27 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     await shifter.close();
     await watcher.close();
   }
+}
+
+/** Waits (up to 5 s) for keyboard focus to be inside the card that holds `name`, in `column`. */
+async function expectFocusOn(page: Page, attribute: "data-card-id" | "data-task-id", name: string, column: string, when: string): Promise<void> {
+  const where = () =>
+    page.evaluate((attr) => {
+      const active = document.activeElement;
+      const holder = active?.closest(`[${attr}]`);
+      return {
+        tag: active ? `${active.tagName.toLowerCase()}${active.getAttribute("aria-label") ? ` “${active.getAttribute("aria-label")}”` : ""}` : "nothing",
+        text: holder?.textContent ?? "",
+        column: holder?.closest("[data-column]")?.getAttribute("data-column") ?? null,
+      };
+    }, attribute);
+  const deadline = Date.now() + 5_000;
+  let seen = await where();
+  while (!(seen.column === column && seen.text.includes(name)) && Date.now() < deadline) {
+    await page.waitForTimeout(100);
+    seen = await where();
+  }
+  check(seen.column === column && seen.text.includes(name), `${when}, focus should be on ${name} in ${column}; it is on ${seen.tag} (card column ${seen.column ?? "none"})`);
 }
 
 async function openBoard(page: Page, baseUrl: string, navigate = true): Promise<void> {
