@@ -18,7 +18,7 @@ await closeDb();
 printDemoSignIns(process.env.APP_URL);
 
 const commands: ConcurrentlyCommandInput[] = [
-  { name: "app", command: `node --import ./server/peer-address.mjs node_modules/next/dist/bin/next dev -p ${port}`, prefixColor: "blue" },
+  { name: "app", command: `node --import ./server/preload.mjs node_modules/next/dist/bin/next dev -p ${port}`, prefixColor: "blue" },
 ];
 if (existsSync("fakes/run-all.ts")) commands.push({ name: "fakes", command: "tsx fakes/run-all.ts", prefixColor: "magenta" });
 if (existsSync("scripts/worker.ts")) commands.push({ name: "worker", command: "tsx scripts/worker.ts", prefixColor: "green" });

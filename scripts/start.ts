@@ -20,7 +20,7 @@ await runSeed();
 await closeDb();
 
 const { PORT: port, START_WORKER } = config();
-const commands: ConcurrentlyCommandInput[] = [{ name: "app", command: `node --import ./server/peer-address.mjs node_modules/next/dist/bin/next start -p ${port}` }];
+const commands: ConcurrentlyCommandInput[] = [{ name: "app", command: `node --import ./server/preload.mjs node_modules/next/dist/bin/next start -p ${port}` }];
 if (START_WORKER !== "0") commands.push({ name: "worker", command: "tsx scripts/worker.ts" });
 const { result } = concurrently(commands, { killOthersOn: ["failure", "success"], prefix: "name" });
 result.then(

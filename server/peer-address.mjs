@@ -1,4 +1,4 @@
-// Preloaded into the Next.js server (`node --import ./server/peer-address.mjs …/next start`).
+// Preloaded into the Next.js server through server/preload.mjs (`node --import ./server/preload.mjs …/next start`).
 // Route handlers never see the socket, and Next keeps a client's own X-Forwarded-For, so a client could claim any
 // address. This stamps every request with the socket's peer address under a header no client can set (an incoming
 // copy is overwritten), and tells the app, through the process environment, that the stamp is real.

@@ -39,7 +39,7 @@ const env: Record<string, string> = { ...productionEnv({ port, databaseUrl, smtp
 // Migrate and seed the demo scenario through the same script production uses.
 execFileSync("node_modules/.bin/tsx", ["scripts/seed.ts"], { stdio: "inherit", env: { ...process.env, ...env, NODE_ENV: "development" } });
 
-const server = startProcess("node", ["--import", "./server/peer-address.mjs", "node_modules/next/dist/bin/next", "start", "-p", String(port)], env, "app");
+const server = startProcess("node", ["--import", "./server/preload.mjs", "node_modules/next/dist/bin/next", "start", "-p", String(port)], env, "app");
 const worker = existsSync("scripts/worker.ts")
   ? startProcess("node_modules/.bin/tsx", ["scripts/worker.ts"], env, "worker")
   : undefined;
