@@ -15,7 +15,10 @@ export function isUniqueViolation(error: unknown): boolean {
   return /UNIQUE constraint failed|SQLITE_CONSTRAINT_(UNIQUE|PRIMARYKEY)/.test(describeChain(error));
 }
 
-/** Another process held the file's write lock past the busy timeout; the caller may retry shortly. */
+/**
+ * Another process held the file's write lock past the busy wait, or this process's queue of writes did not move
+ * (db/write-queue.ts); the caller may retry shortly.
+ */
 export function isDatabaseBusy(error: unknown): boolean {
-  return /SQLITE_BUSY|database is locked/.test(describeChain(error));
+  return /SQLITE_BUSY|database is locked|database is busy/.test(describeChain(error));
 }

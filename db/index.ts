@@ -15,10 +15,10 @@ const globalForDb = globalThis as unknown as { chirpdeskDb?: DbCache };
 
 /** The process's database, opened on first use from DATABASE_URL. */
 export function getDb(): Promise<Database> {
-  const { DATABASE_URL: url, DATABASE_AUTH_TOKEN: authToken } = config();
+  const { DATABASE_URL: url, DATABASE_AUTH_TOKEN: authToken, DATABASE_BUSY_WAIT_MS: waitMs } = config();
   const cached = globalForDb.chirpdeskDb;
   if (cached && cached.url === url) return cached.db;
-  const db = openDatabase(url, authToken);
+  const db = openDatabase(url, authToken, { waitMs });
   globalForDb.chirpdeskDb = { url, db };
   db.catch(() => {
     if (globalForDb.chirpdeskDb?.db === db) globalForDb.chirpdeskDb = undefined;

@@ -22,7 +22,7 @@ export function serialiseWrites(client: Client): Client {
     tail = previous.then(() => held);
     return new Promise((resolve, reject) => {
       const timer = setTimeout(() => {
-        reject(new Error(`a database write waited over ${WAIT_LIMIT_MS} ms for this process's earlier writes`));
+        reject(new Error(`database is busy: a write waited over ${WAIT_LIMIT_MS} ms for this process's earlier writes`));
         // Our turn may still come; pass it straight on.
         void previous.then(release);
       }, WAIT_LIMIT_MS);

@@ -33,6 +33,8 @@ const commonShape = {
   NEXT_RUNTIME: z.string().optional(),
   DATABASE_URL: z.string().min(1).default(defaultDatabaseUrl),
   DATABASE_AUTH_TOKEN: z.string().optional(),
+  /** how long a write waits in all for another process's lock on the database file before answering 503 */
+  DATABASE_BUSY_WAIT_MS: positiveInt.default(10_000),
   /** the public origin for links in pages and e-mails, when it differs from NEXTAUTH_URL */
   APP_URL: z.string().url().optional(),
   UPLOAD_DIR: z.string().min(1).default(defaultUploadDir),

@@ -4,6 +4,21 @@ import type { SessionUser } from "./roles";
 
 const TOKEN_PREFIX = "cdk_";
 
+/**
+ * When a token was last used is a convenience for its owner's token list, never worth delaying or failing a request
+ * (a bearer read must not fail because the database is busy): it is recorded at most once a minute per token, not
+ * awaited, and a failure is dropped (the next use records it).
+ */
+const RECORD_USE_EVERY_MS = 60_000;
+const useRecordedAt = new Map<string, number>();
+
+function recordUse(tokenId: string, now: Date): void {
+  const last = useRecordedAt.get(tokenId);
+  if (last !== undefined && Math.abs(now.getTime() - last) < RECORD_USE_EVERY_MS) return;
+  useRecordedAt.set(tokenId, now.getTime());
+  touchApiToken(tokenId, now).catch(() => useRecordedAt.delete(tokenId));
+}
+
 export function hashToken(token: string): string {
   return createHash("sha256").update(token).digest("hex");
 }
@@ -31,7 +46,7 @@ export async function resolveApiToken(token: string, now = new Date()): Promise<
   const row = await findApiTokenByHash(hash);
   if (!row || row.revokedAt || row.user.disabledAt) return null;
   if (!timingSafeEqual(Buffer.from(row.tokenHash, "hex"), Buffer.from(hash, "hex"))) return null;
-  await touchApiToken(row.tokenId, now);
+  recordUse(row.tokenId, now);
   const { id, email, name, role, timeZone, initials } = row.user;
   return { id, email, name, role, timeZone, initials };
 }
