@@ -17,6 +17,8 @@ import { TasksPanel } from "@/components/candidate/tasks-panel";
 import { trackSeries } from "@/components/candidate/track-data";
 import { TrackPlot } from "@/components/candidate/track-plot";
 import { MergedNotice, TriggersPanel } from "@/components/candidate/triggers-panel";
+import { CounterpartsPanel } from "@/components/observations/counterparts-panel";
+import { CoveragePanel } from "@/components/observations/coverage-panel";
 import { Panel, PanelTitle } from "@/components/ui/panel";
 import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
@@ -127,6 +129,8 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
             <TrackPlot series={series} />
           </Panel>
           <SkymapSlot candidateId={detail.id} revision={detail.revision} timeZone={tz} />
+          <CoveragePanel candidateId={detail.id} sites={sites} timeZone={tz} />
+          <CounterpartsPanel candidateId={detail.id} canReport={hasRole(user, can.reportCounterparts)} timeZone={tz} />
         </div>
         <div className="space-y-4 xl:col-start-2 xl:row-span-2 xl:row-start-1">
           <Panel>
