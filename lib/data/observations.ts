@@ -1,6 +1,6 @@
 import { asc, eq, inArray } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
-import { followUpTasks, instruments, observations, siteObservers, type Instrument, type NewObservation, type Observation } from "@/db/schema";
+import { candidates, followUpTasks, instruments, observations, siteObservers, type Instrument, type NewObservation, type Observation } from "@/db/schema";
 
 /** Storage of the observation log: queries only; the service decides who may write and what a row means. */
 
@@ -57,4 +57,12 @@ export async function listTaskObservations(taskId: string): Promise<Observation[
   const db = await getDb();
   if (!(await readTaskForRecording(db, taskId))) return null;
   return db.select().from(observations).where(eq(observations.taskId, taskId)).orderBy(asc(observations.startTime));
+}
+
+/** A candidate's log for drawing and lists; null when there is no such candidate. */
+export async function listCandidateLog(candidateId: string): Promise<Observation[] | null> {
+  const db = await getDb();
+  const [candidate] = await db.select({ id: candidates.id }).from(candidates).where(eq(candidates.id, candidateId)).limit(1);
+  if (!candidate) return null;
+  return listCandidateObservations(candidateId, db);
 }

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { uploadSkymap } from "@/lib/data/skymaps";
 import * as coverageRoute from "@/app/api/v1/candidates/[id]/coverage/route";
+import * as candidateObservations from "@/app/api/v1/candidates/[id]/observations/route";
 import * as taskObservations from "@/app/api/v1/tasks/[id]/observations/route";
 import { fixtureBytes } from "../skymap/fixture-files";
 import { call, createCaller, insertCandidate, setupSkymapTest, type Caller, type SkymapTestEnv } from "../skymap-api/helpers";
@@ -119,5 +120,18 @@ describe("GET /api/v1/candidates/{id}/coverage", () => {
   it("every signed-in role reads coverage; no credentials → 401", async () => {
     for (const role of ["shifter", "observer", "coordinator", "admin"] as const) expect((await coverage(who[role])).status).toBe(200);
     expect((await call(coverageRoute.GET, { params: { id: candidateId } })).status).toBe(401);
+  });
+});
+
+describe("GET /api/v1/candidates/{id}/observations", () => {
+  it("lists every logged exposure with its resolved footprint for any signed-in role; 404 for an unknown candidate", async () => {
+    const res = await call(candidateObservations.GET, { caller: who.admin, params: { id: candidateId } });
+    expect(res.status).toBe(200);
+    const rows = res.json.observations as Array<{ raDeg: number; footprint: unknown; siteId: string | null; startTime: string }>;
+    expect(rows.length).toBeGreaterThanOrEqual(4);
+    expect(rows.map((r) => r.startTime)).toEqual([...rows.map((r) => r.startTime)].sort());
+    expect(rows.find((r) => r.raDeg === log[0]?.raDeg)?.footprint).toEqual(log[0]?.footprint);
+    expect((await call(candidateObservations.GET, { caller: who.shifter, params: { id: "nope" } })).status).toBe(404);
+    expect((await call(candidateObservations.GET, { params: { id: candidateId } })).status).toBe(401);
   });
 });
