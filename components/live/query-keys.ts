@@ -7,6 +7,7 @@ export const queryKeys = {
   candidate: (id: string) => ["candidate", id] as const,
   notes: (id: string) => ["notes", id] as const,
   coverage: (id: string) => ["coverage", id] as const,
+  observations: (id: string) => ["observations", id] as const,
   counterparts: (id: string) => ["counterparts", id] as const,
 };
 
@@ -27,8 +28,10 @@ export function keysForEvent(event: EventLike): QueryKey[] {
     return [...keys, ...candidate];
   }
   if (event.kind === "observation.recorded") {
-    // A task's log grew: the candidate's coverage and the task cards.
-    return event.candidateId ? [queryKeys.coverage(event.candidateId), queryKeys.tasks, ...candidate] : [queryKeys.tasks];
+    // A task's log grew: the candidate's coverage, its drawn footprints and the task cards.
+    return event.candidateId
+      ? [queryKeys.coverage(event.candidateId), queryKeys.observations(event.candidateId), queryKeys.tasks, ...candidate]
+      : [queryKeys.tasks];
   }
   if (event.kind === "counterpart.reported") return event.candidateId ? [queryKeys.counterparts(event.candidateId), ...candidate] : [];
   if (event.kind === "skymap.uploaded") {

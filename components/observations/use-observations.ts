@@ -3,6 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { queryKeys } from "@/components/live/query-keys";
 import { ApiClientError, apiFetch } from "@/lib/api-client";
+import type { Observation } from "@/db/schema/observations";
 import type { CounterpartAnswer } from "@/lib/services/report-counterpart";
 import type { CoverageAnswer } from "@/lib/services/read-coverage";
 
@@ -28,5 +29,15 @@ export function useCounterparts(candidateId: string) {
   return useQuery({
     queryKey: queryKeys.counterparts(candidateId),
     queryFn: () => apiFetch<{ skymapId: string | null; counterparts: CounterpartAnswer[] }>(`/api/v1/candidates/${candidateId}/counterparts`),
+  });
+}
+
+/** A logged exposure as the API sends it (times as ISO text). */
+export type LoggedObservation = Omit<Observation, "startTime" | "createdAt"> & { startTime: string; createdAt: string };
+
+export function useCandidateObservations(candidateId: string) {
+  return useQuery({
+    queryKey: queryKeys.observations(candidateId),
+    queryFn: () => apiFetch<{ observations: LoggedObservation[] }>(`/api/v1/candidates/${candidateId}/observations`).then((r) => r.observations),
   });
 }

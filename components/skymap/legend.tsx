@@ -23,7 +23,7 @@ export interface LegendSite {
 }
 
 /** What the colours, lines and markers of the sky views mean; site chips show or hide each site's band. */
-export function SkymapLegend({ sites, onToggle }: { sites: ReadonlyArray<LegendSite>; onToggle: (code: string) => void }) {
+export function SkymapLegend({ sites, onToggle, observedCount = 0 }: { sites: ReadonlyArray<LegendSite>; onToggle: (code: string) => void; observedCount?: number }) {
   const palette = skyPalettes[skyThemeOf(useTheme().resolvedTheme)];
   return (
     <div className="space-y-3 text-xs">
@@ -48,6 +48,14 @@ export function SkymapLegend({ sites, onToggle }: { sites: ReadonlyArray<LegendS
           </dt>
           <dd className="text-muted">Sun and Moon now (geocentric); + most probable position</dd>
         </div>
+        {observedCount ? (
+          <div className="flex items-center gap-2">
+            <dt className="h-3 w-14 shrink-0 border border-fg bg-fg/20" />
+            <dd className="text-muted">
+              Shaded, solid outline: observed footprints ({observedCount.toLocaleString("en-US")} exposures logged)
+            </dd>
+          </div>
+        ) : null}
       </dl>
       {sites.length ? (
         <div className="space-y-1.5">

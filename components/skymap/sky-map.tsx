@@ -7,6 +7,7 @@ import type { NightBand } from "./night-band";
 import { projectView, type SkyView } from "./projection";
 import { paint, samplePixels, type RasterGrid, type Rgb } from "./raster";
 import { formatDec, formatRa } from "./format";
+import { outlinePolygon, type SkyOutline } from "./outlines";
 import { skyPalettes, skyThemeOf } from "./palette";
 
 export interface SkyMarker {
@@ -25,6 +26,8 @@ export interface SkyMapProps {
   aspect: number;
   title: string;
   maxWidth?: number;
+  /** footprints to draw over the map (observed: filled, solid; planned: dashed) */
+  outlines?: ReadonlyArray<SkyOutline>;
 }
 
 /** "9h", "9h20m": compact RA labels for grid lines. */
@@ -59,7 +62,7 @@ function useWidth(ref: React.RefObject<HTMLElement | null>, maxWidth: number): n
 }
 
 /** One sky view: probability raster and contours on a canvas, grid, labels and markers in SVG on top. */
-export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH }: SkyMapProps) {
+export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH, outlines = [] }: SkyMapProps) {
   const wrapper = useRef<HTMLDivElement>(null);
   const canvas = useRef<HTMLCanvasElement>(null);
   const width = useWidth(wrapper, maxWidth);
@@ -107,6 +110,14 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
     }
     return { outline: path({ type: "Sphere" }) ?? "", grid: path(graticule) ?? "", labels };
   }, [projected, view]);
+  const footprints = useMemo(() => {
+    if (!projected) return [];
+    const path = geoPath(projected.projection);
+    return outlines.flatMap((o) => {
+      const d = path(outlinePolygon(o));
+      return d ? [{ id: o.id, d, style: o.style, label: o.label }] : [];
+    });
+  }, [projected, outlines]);
 
   const onMove = (e: React.MouseEvent<SVGSVGElement>) => {
     if (!projected) return;
@@ -136,6 +147,19 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
                   {l.text}
                 </text>
               ))}
+              <g data-testid="sky-footprints">
+                {footprints.map((f) =>
+                  f.style === "observed" ? (
+                    <path key={f.id} d={f.d} className="fill-fg stroke-fg" fillOpacity={0.18} strokeWidth={0.8} data-footprint="observed">
+                      <title>{f.label}</title>
+                    </path>
+                  ) : (
+                    <path key={f.id} d={f.d} fill="none" className="stroke-fg" strokeDasharray="3 2" strokeWidth={0.8} data-footprint="planned">
+                      <title>{f.label}</title>
+                    </path>
+                  ),
+                )}
+              </g>
               {markers.map((m) => {
                 const at = projected?.place(m.raDeg, m.decDeg);
                 if (!at) return null;

@@ -8,11 +8,14 @@ import { Select } from "@/components/ui/field";
 import { Panel, PanelTitle } from "@/components/ui/panel";
 import type { SkymapInfo } from "@/lib/data/skymaps";
 import { formatInZone, isoUtc } from "@/lib/format/time";
+import { footprintOutline } from "@/lib/skymap/footprint";
 import { credibleRegionPoints } from "@/lib/skymap/region";
+import { useCandidateObservations } from "@/components/observations/use-observations";
 import { ConeQuery } from "./cone-query";
 import { DistanceFigures } from "./distance-figures";
 import { formatArea, formatBytes, formatDec, formatRa, formatShare } from "./format";
 import { SkymapLegend } from "./legend";
+import type { SkyOutline } from "./outlines";
 import { zoomOn, type SkyView } from "./projection";
 import { skymapKeys, siteColours } from "./query-keys";
 import type { Rgb } from "./raster";
@@ -83,6 +86,17 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
   const grid = useDisplayGrid(skymap.id);
   const visibility = useVisibility(candidateId, true);
   const sunMoon = useSunMoonNow();
+  const observed = useCandidateObservations(candidateId);
+  const outlines = useMemo<SkyOutline[]>(
+    () =>
+      (observed.data ?? []).map((o) => ({
+        id: o.id,
+        ring: footprintOutline(o.footprint, o.raDeg, o.decDeg, 24).map((p) => [p.raDeg, p.decDeg] as const),
+        style: "observed",
+        label: `Observed ${o.filter} ${o.exposureS} s from ${isoUtc(o.startTime)}`,
+      })),
+    [observed.data],
+  );
   const rows = useMemo(() => visibility.data?.rows ?? [], [visibility.data]);
 
   const colours = useMemo(() => {
@@ -143,7 +157,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
       {grid.data ? (
         <div className="space-y-4" data-testid="skymap-views">
           <div className="rounded-md bg-sunken p-2">
-            <SkyMap grid={grid.data} view={ALL_SKY} bands={bands} markers={markers} aspect={2} title="All sky (Mollweide, equatorial J2000)" />
+            <SkyMap grid={grid.data} view={ALL_SKY} bands={bands} markers={markers} outlines={outlines} aspect={2} title="All sky (Mollweide, equatorial J2000)" />
           </div>
           <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
             <div className="rounded-md bg-sunken p-2">
@@ -153,6 +167,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
                   view={zoom}
                   bands={bands}
                   markers={markers}
+                  outlines={outlines}
                   aspect={1}
                   maxWidth={420}
                   title={`The 90 % region (equal-area, ${Math.round(zoom.kind === "zoom" ? 2 * zoom.radiusDeg : 0)}° across)`}
@@ -160,6 +175,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
               ) : null}
             </div>
             <SkymapLegend
+              observedCount={outlines.length}
               onToggle={toggle}
               sites={(isNewest ? rows : []).map((r) => ({
                 code: r.site.code,
