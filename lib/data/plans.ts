@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray, isNull, ne } from "drizzle-orm";
 import type { Tx } from "@/db";
 import {
+  observations,
   planPointings,
   plans,
   siteObservers,
@@ -82,12 +83,13 @@ export async function openPlanTiles(tx: Tx, candidateId: string, exceptPlanId?: 
     .orderBy(asc(plans.createdAt), asc(planPointings.planId), asc(planPointings.index));
 }
 
-/**
- * Footprints already observed for the candidate, which a new plan leaves out unless `avoid` is "none".
- * Returns nothing until observations are stored; the observations work fills this in.
- */
-export async function observedFootprints(_tx: Tx, _candidateId: string): Promise<PlacedTileRow[]> {
-  return [];
+/** Footprints already observed for the candidate (its whole log), which a new plan leaves out unless `avoid` is "none". */
+export async function observedFootprints(tx: Tx, candidateId: string): Promise<PlacedTileRow[]> {
+  return tx
+    .select({ raDeg: observations.raDeg, decDeg: observations.decDeg, footprint: observations.footprint })
+    .from(observations)
+    .where(eq(observations.candidateId, candidateId))
+    .orderBy(asc(observations.startTime), asc(observations.id));
 }
 
 /** Writes a plan and its pointings (call inside the service's transaction). */
