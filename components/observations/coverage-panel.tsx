@@ -29,7 +29,7 @@ export function CoveragePanel({ candidateId, sites, timeZone }: { candidateId: s
       <PanelTitle id="coverage-title">Observed so far</PanelTitle>
       {coverage.isLoading ? <p className="text-sm text-muted">Working out the coverage…</p> : null}
       {coverage.isError ? <p className="text-sm text-alarm">Could not load the coverage: {errorText(coverage.error)}</p> : null}
-      {coverage.isSuccess && data === null ? <p className="text-sm text-muted">No sky map yet, so there is nothing to cover.</p> : null}
+      {coverage.isSuccess && data === null ? <p className="text-sm text-muted">Coverage appears once the candidate has a sky map.</p> : null}
       {data ? (
         <div className="space-y-3">
           <dl className="grid grid-cols-3 gap-3 text-sm">
