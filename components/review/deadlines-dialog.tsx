@@ -20,6 +20,9 @@ const fields: Array<{ key: keyof DeadlinesInput; label: string; hint: string }> 
   { key: "decisionMinutes", label: "Triage decision", hint: "acknowledged → decision" },
   { key: "claimMinutes", label: "Follow-up claim", hint: "pursue → first claim" },
   { key: "reportMinutes", label: "First report", hint: "first claim → first report" },
+  { key: "firstExposureMinutes", label: "First exposure", hint: "merger → first exposure" },
+  { key: "covered50Minutes", label: "Half the sky", hint: "merger → 50 % of the probability observed" },
+  { key: "covered90Minutes", label: "Most of the sky", hint: "merger → 90 % observed" },
   { key: "acknowledgeWarnMinutes", label: "Board: warn after", hint: "from receipt, card timer turns amber" },
   { key: "acknowledgeAlarmMinutes", label: "Board: alarm after", hint: "from receipt, card timer turns red" },
 ];

@@ -6,6 +6,7 @@ import { roleLabels } from "@/lib/auth/roles";
 import { formatClock, formatInZone } from "@/lib/format/time";
 import type { ReviewReport } from "@/lib/review/report";
 import { steps, type StepId } from "@/lib/review/steps";
+import { CoverageCurves } from "./coverage-curves";
 import { DistributionChart } from "./distribution-chart";
 import { GroupTable, type GroupRowView } from "./group-table";
 import { StepCandidatesDialog, type ListingSpec } from "./step-candidates-dialog";
@@ -51,7 +52,7 @@ export function ReviewView({ report, filterQuery }: { report: ReviewReport; filt
         })),
     [report.people, step],
   );
-  const personal = step === "acknowledge" || step === "decide" || step === "claim" || step === "report";
+  const personal = step === "acknowledge" || step === "decide" || step === "claim" || step === "report" || step === "exposure";
 
   return (
     <div className="space-y-4">
@@ -100,13 +101,17 @@ export function ReviewView({ report, filterQuery }: { report: ReviewReport; filt
           </div>
         </div>
         {groupBy === "person" && !personal ? (
-          <p className="mb-2 text-xs text-muted">{steps[step].label} is the system&apos;s step, not a person&apos;s: pick acknowledgement, decision, claim or report to compare people.</p>
+          <p className="mb-2 text-xs text-muted">{steps[step].label} is the system&apos;s step, not a person&apos;s: pick acknowledgement, decision, claim, report or first exposure to compare people.</p>
         ) : null}
         {groupBy === "shift" ? (
           <GroupTable rows={shiftRows} firstHeader="Shift" caption="Figures per shift, by receipt time" initialSort={latestFirst} />
         ) : (
           <GroupTable rows={personRows} firstHeader="Person" caption="Figures per person, over the steps they finished" />
         )}
+      </Panel>
+      <Panel>
+        <PanelTitle>Observed probability against time since merger</PanelTitle>
+        <CoverageCurves curves={report.curves} />
       </Panel>
       <StepCandidatesDialog spec={listing} filterQuery={filterQuery} timeZone={tz} onClose={() => setListing(null)} />
     </div>

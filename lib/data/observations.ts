@@ -1,6 +1,6 @@
-import { asc, eq, inArray } from "drizzle-orm";
+import { asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
-import { candidates, followUpTasks, instruments, observations, siteObservers, type Instrument, type NewObservation, type Observation } from "@/db/schema";
+import { candidates, followUpTasks, instruments, observations, siteObservers, skymaps, uploads, type Instrument, type NewObservation, type Observation } from "@/db/schema";
 
 /** Storage of the observation log: queries only; the service decides who may write and what a row means. */
 
@@ -65,4 +65,36 @@ export async function listCandidateLog(candidateId: string): Promise<Observation
   const [candidate] = await db.select({ id: candidates.id }).from(candidates).where(eq(candidates.id, candidateId)).limit(1);
   if (!candidate) return null;
   return listCandidateObservations(candidateId, db);
+}
+
+const ID_CHUNK = 500;
+
+async function inChunks<T>(ids: readonly string[], read: (chunk: string[]) => Promise<T[]>): Promise<T[]> {
+  const out: T[] = [];
+  for (let i = 0; i < ids.length; i += ID_CHUNK) out.push(...(await read(ids.slice(i, i + ID_CHUNK))));
+  return out;
+}
+
+/** The logs of many candidates at once (the review), oldest start first. */
+export async function listObservationsOf(candidateIds: readonly string[], tx?: Tx): Promise<Observation[]> {
+  const q = tx ?? (await getDb());
+  return inChunks(candidateIds, (chunk) =>
+    q.select().from(observations).where(inArray(observations.candidateId, chunk)).orderBy(asc(observations.startTime), asc(observations.id)),
+  );
+}
+
+/** Each candidate's newest sky map file (the one coverage is measured on), for the candidates that have one. */
+export async function newestSkymapFilesOf(candidateIds: readonly string[], tx?: Tx): Promise<Map<string, { skymapId: string; sha256: string }>> {
+  const q = tx ?? (await getDb());
+  const rows = await inChunks(candidateIds, (chunk) =>
+    q
+      .select({ candidateId: skymaps.candidateId, skymapId: skymaps.id, sha256: uploads.sha256 })
+      .from(skymaps)
+      .innerJoin(uploads, eq(uploads.id, skymaps.uploadId))
+      .where(inArray(skymaps.candidateId, chunk))
+      .orderBy(desc(skymaps.createdAt)),
+  );
+  const newest = new Map<string, { skymapId: string; sha256: string }>();
+  for (const r of rows) if (!newest.has(r.candidateId)) newest.set(r.candidateId, { skymapId: r.skymapId, sha256: r.sha256 });
+  return newest;
 }

@@ -19,7 +19,8 @@ export const settingSchemas = {
    * Minutes. acknowledgeWarn/Alarm run from receipt (the board's card timers). The others are the review's step
    * deadlines, each on that step's own duration (lib/review/steps.ts): merger → receipt (feedLatency),
    * receipt → first page (page), first page → acknowledged (acknowledgeStep), acknowledged → decision (decision),
-   * pursue → first claim (claim), first claim → first report (report).
+   * pursue → first claim (claim), first claim → first report (report); and from the merger, the first exposure
+   * (firstExposure) and 50 % / 90 % of the probability observed (covered50, covered90).
    */
   deadlines: z.object({
     acknowledgeWarnMinutes: z.number().min(0.5).max(240).default(3),
@@ -30,6 +31,9 @@ export const settingSchemas = {
     pageMinutes: z.number().min(0.1).max(60).default(1),
     feedLatencyMinutes: z.number().min(0.1).max(60).default(2),
     acknowledgeStepMinutes: z.number().min(0.5).max(240).default(4),
+    firstExposureMinutes: z.number().min(1).max(7 * 24 * 60).default(120),
+    covered50Minutes: z.number().min(1).max(7 * 24 * 60).default(12 * 60),
+    covered90Minutes: z.number().min(1).max(14 * 24 * 60).default(48 * 60),
   }),
   /** how triggers from several pipelines group into one candidate (lib/validations/grouping.ts) */
   grouping: groupingSettingsSchema,

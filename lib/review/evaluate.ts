@@ -21,11 +21,12 @@ export function reviewCandidates(
   nowMs: number,
 ): CandidateReview[] {
   return facts.map((f) => {
-    const [feed, page, acknowledge, decide, claim, report] = candidateSteps(f, nowMs) as [
-      StepTiming, StepTiming, StepTiming, StepTiming, StepTiming, StepTiming,
-    ];
-    const steps = { feed, page, acknowledge, decide, claim, report };
-    for (const t of [feed, page, acknowledge, decide, claim, report]) t.overDeadline = isOverDeadline(t, deadlinesMs[t.step]);
+    const timings = candidateSteps(f, nowMs);
+    const steps = {} as Record<StepId, EvaluatedStep>;
+    for (const t of timings) {
+      t.overDeadline = isOverDeadline(t, deadlinesMs[t.step]);
+      steps[t.step] = t;
+    }
     return { facts: f, steps };
   });
 }

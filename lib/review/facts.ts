@@ -46,12 +46,18 @@ export function factsOf(m: CandidateMilestones): CandidateFacts {
     reportedById: m.firstReport?.actorId ?? null,
     taskCount: m.taskCount,
     cancelledTaskCount: m.cancelledTaskCount,
+    // filled from the observation log by coverage-facts.ts
+    firstExposureAtMs: null,
+    firstExposureById: null,
+    covered50AtMs: null,
+    covered90AtMs: null,
+    hasSkymap: false,
   };
 }
 
 /** Did this person finish any step of the candidate, or own it? (the review's person filter) */
 export function involves(f: CandidateFacts, personId: string): boolean {
-  return [f.ownerId, f.acknowledgedById, f.decidedById, f.claimedById, f.reportedById].includes(personId);
+  return [f.ownerId, f.acknowledgedById, f.decidedById, f.claimedById, f.reportedById, f.firstExposureById].includes(personId);
 }
 
 /** Per-candidate facts for the review: storage's milestones, reduced. */

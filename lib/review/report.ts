@@ -2,6 +2,7 @@ import { getSetting, type SettingValue } from "@/lib/data/settings";
 import { loadShift, type ReviewFilters } from "@/lib/data/review";
 import type { Tx } from "@/db";
 import { reviewCandidates, type CandidateReview } from "./evaluate";
+import { attachCoverageFacts, type ReviewCurve } from "./coverage-facts";
 import { involves, loadCandidateFacts } from "./facts";
 import type { PersonRow, ShiftRow } from "./groups";
 import type { HistogramBin } from "./histogram";
@@ -22,6 +23,8 @@ export interface ReviewScope {
   deadlines: SettingValue<"deadlines">;
   deadlinesMs: Record<StepId, number>;
   rows: CandidateReview[];
+  /** coverage curves of the candidates in scope that have observations on a sky map */
+  curves: ReviewCurve[];
 }
 
 /**
@@ -39,8 +42,10 @@ export async function loadReviewScope(req: ReviewRequest, q?: Tx): Promise<Revie
   const deadlines = await getSetting("deadlines", q);
   const deadlinesMs = stepDeadlinesMs(deadlines);
   let facts = toMs > fromMs ? await loadCandidateFacts({ ...req, fromMs, toMs }, req.nowMs, q) : [];
+  const curves = await attachCoverageFacts(facts, q);
   if (req.personId) facts = facts.filter((f) => involves(f, req.personId as string));
-  return { fromMs, toMs, deadlines, deadlinesMs, rows: reviewCandidates(facts, deadlinesMs, req.nowMs) };
+  const kept = new Set(facts.map((f) => f.id));
+  return { fromMs, toMs, deadlines, deadlinesMs, rows: reviewCandidates(facts, deadlinesMs, req.nowMs), curves: curves.filter((c) => kept.has(c.candidateId)) };
 }
 
 /** Everything the review page draws (built by lib/services/build-review.ts). */
@@ -57,4 +62,6 @@ export interface ReviewReport {
   trend: WeekPoint[];
   shifts: ShiftRow[];
   people: PersonRow[];
+  /** coverage curves (probability observed against time since merger) of the candidates in scope that have them */
+  curves: ReviewCurve[];
 }

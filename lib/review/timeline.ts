@@ -22,6 +22,13 @@ export interface CandidateFacts extends CandidateColumns {
   reportedById: string | null;
   taskCount: number;
   cancelledTaskCount: number;
+  /** the first logged exposure's start and who logged it (lib/review/coverage-facts.ts) */
+  firstExposureAtMs: number | null;
+  firstExposureById: string | null;
+  /** end of the exposure that took the observed probability of the newest sky map to 50 % / 90 %; null if never */
+  covered50AtMs: number | null;
+  covered90AtMs: number | null;
+  hasSkymap: boolean;
 }
 
 /**
@@ -69,7 +76,7 @@ function unfinished(step: StepId, f: CandidateFacts, startMs: number, nowMs: num
   return timing(step, "open", startMs, null, Math.max(0, nowMs - startMs), null, null);
 }
 
-/** The six step timings of one candidate, relative to `nowMs` for open steps. */
+/** The nine step timings of one candidate, relative to `nowMs` for open steps. */
 export function candidateSteps(f: CandidateFacts, nowMs: number): StepTiming[] {
   const receipt = f.receivedAtMs;
   const ack = f.acknowledgedAtMs;
@@ -102,7 +109,39 @@ export function candidateSteps(f: CandidateFacts, nowMs: number): StepTiming[] {
   } else if (f.firstClaimAtMs !== null) report = unfinished("report", f, f.firstClaimAtMs, nowMs, true);
   else report = claim.status === "skipped" ? skipped("report", claim.note ?? "") : waiting("report");
 
-  return [feed, page, acknowledge, decide, claim, report];
+  return [
+    feed,
+    page,
+    acknowledge,
+    decide,
+    claim,
+    report,
+    coverageStep("exposure", f, f.firstExposureAtMs, f.firstExposureById, false, decide, nowMs),
+    coverageStep("covered50", f, f.covered50AtMs, null, true, decide, nowMs),
+    coverageStep("covered90", f, f.covered90AtMs, null, true, decide, nowMs),
+  ];
+}
+
+/**
+ * A step from the merger to an observing milestone. It is open once follow-up began (a pursue decision, a task or
+ * a claim) until the milestone; coverage steps are skipped when there is no sky map to measure on, and every one
+ * when the candidate was decided without follow-up.
+ */
+function coverageStep(
+  step: StepId,
+  f: CandidateFacts,
+  endMs: number | null,
+  actorId: string | null,
+  needsMap: boolean,
+  decide: StepTiming,
+  nowMs: number,
+): StepTiming {
+  if (endMs !== null) return done(step, f.eventTimeMs, endMs, actorId);
+  const followUp = f.firstPursueAtMs !== null || f.taskCount > 0 || f.firstClaimAtMs !== null;
+  if (followUp && needsMap && !f.hasSkymap) return skipped(step, "no sky map", f.eventTimeMs);
+  if (followUp) return unfinished(step, f, f.eventTimeMs, nowMs, true);
+  if (decide.status === "done") return skipped(step, `decided ${f.firstDecision ?? "without follow-up"}`);
+  return decide.status === "skipped" ? skipped(step, decide.note ?? "") : waiting(step);
 }
 
 function claimStep(f: CandidateFacts, decide: StepTiming, nowMs: number): StepTiming {

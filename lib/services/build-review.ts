@@ -30,5 +30,6 @@ export async function buildReviewReport(req: ReviewRequest): Promise<ReviewRepor
     // Shifts not yet begun have nothing to show.
     shifts: shiftRows(rows, shifts.filter((s) => s.startsAtMs <= req.nowMs && (!req.shiftId || s.id === req.shiftId))),
     people: personRows(rows, people),
+    curves: scope.curves,
   };
 }

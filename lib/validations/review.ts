@@ -54,6 +54,9 @@ export const deadlinesSchema = z
     reportMinutes: z.number().min(1).max(7 * 24 * 60),
     acknowledgeWarnMinutes: z.number().min(0.5).max(240),
     acknowledgeAlarmMinutes: z.number().min(0.5).max(240),
+    firstExposureMinutes: z.number().min(1).max(7 * 24 * 60),
+    covered50Minutes: z.number().min(1).max(7 * 24 * 60),
+    covered90Minutes: z.number().min(1).max(14 * 24 * 60),
   })
   .refine((d) => d.acknowledgeWarnMinutes <= d.acknowledgeAlarmMinutes, {
     path: ["acknowledgeWarnMinutes"],

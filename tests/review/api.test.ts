@@ -29,6 +29,9 @@ const defaults = {
   reportMinutes: 720,
   acknowledgeWarnMinutes: 3,
   acknowledgeAlarmMinutes: 5,
+  firstExposureMinutes: 120,
+  covered50Minutes: 720,
+  covered90Minutes: 2880,
 };
 
 beforeAll(async () => {

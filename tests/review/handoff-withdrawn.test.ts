@@ -14,7 +14,8 @@ const facts = (over: Partial<CandidateFacts>): CandidateFacts => ({
   ownerId: null, eventTimeMs: T0 - 10_000, receivedAtMs: T0, withdrawnAtMs: null, firstPageAtMs: T0 + 5_000,
   acknowledgedAtMs: null, acknowledgedById: null, firstDecisionAtMs: null, firstDecision: null, decidedById: null,
   firstPursueAtMs: null, firstClaimAtMs: null, claimedById: null, firstReportAtMs: null, reportedById: null,
-  taskCount: 0, cancelledTaskCount: 0, ...over,
+  taskCount: 0, cancelledTaskCount: 0, firstExposureAtMs: null, firstExposureById: null, covered50AtMs: null, covered90AtMs: null,
+  hasSkymap: false, ...over,
 });
 
 describe("handoff summary and withdrawn candidates", () => {

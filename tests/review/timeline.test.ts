@@ -23,8 +23,11 @@ async function review(extra: { siteId?: string } = {}): Promise<Map<string, Cand
   return new Map(reviewCandidates(facts, deadlines, NOW).map((r) => [r.facts.externalId, r]));
 }
 
+// The response chain's six steps; the observing steps (merger → first exposure, → 50 %, → 90 %) need an
+// observation log and are checked in tests/observations/review-steps.test.ts.
+const chain = ["feed", "page", "acknowledge", "decide", "claim", "report"] as const;
 const brief = (r: CandidateReview | undefined) =>
-  r && Object.fromEntries(Object.entries(r.steps).map(([k, t]) => [k, [t.status, t.durationMs === null ? null : t.durationMs / 1000, t.overDeadline]]));
+  r && Object.fromEntries(chain.map((k) => [k, [r.steps[k].status, r.steps[k].durationMs === null ? null : r.steps[k].durationMs / 1000, r.steps[k].overDeadline]]));
 
 describe("step durations from the fixture audit log (worked by hand in fixture-log.ts times)", () => {
   it("keeps to the range: TX-F, two days earlier, is left out", async () => {
