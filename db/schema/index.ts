@@ -9,3 +9,4 @@ export * from "./settings";
 export * from "./instruments";
 export * from "./observations";
 export * from "./plans";
+export * from "./galaxies";

@@ -39,6 +39,8 @@ export const can = {
   uploadSkymap: ["shifter", "coordinator"],
   /** split a trigger out of its candidate, merge two candidates */
   regroupTriggers: ["coordinator"],
+  /** upload, rename, make default and delete galaxy catalogues */
+  manageCatalogues: ["coordinator"],
   read: ["shifter", "observer", "coordinator", "admin"],
 } as const satisfies Record<string, readonly Role[]>;
 

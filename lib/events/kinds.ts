@@ -31,6 +31,7 @@ export const eventKinds = {
   instrumentChanged: "instrument.changed", // data: { instrumentId, siteId, name, action: "created" | "updated" | "deleted" }
   planCreated: "plan.created", // data: { planId, siteId, instrumentId, taskId, pointings, scheduled, scheduledProbability }
   pointingDone: "plan.pointing-done", // data: { planId, pointingId, index, done: boolean }
+  catalogueChanged: "catalogue.changed", // data: { catalogueId, name, rows?, action: "imported" | "renamed" | "made-default" | "deleted" }
   shiftChanged: "shift.changed", // data: { shiftId, action: "created" | "updated" | "deleted" }
   settingsChanged: "settings.changed", // data: { key }
   userChanged: "user.changed", // data: { userId, action }

@@ -58,7 +58,7 @@ function fail(row: number, field: string, message: string): CsvParse {
 }
 
 /** One line's cells; a quoted cell may hold commas and doubled quotes (RFC 4180 §2), not line breaks. */
-function splitLine(line: string): string[] {
+export function splitLine(line: string): string[] {
   const cells: string[] = [];
   let cell = "";
   let quoted = false;
