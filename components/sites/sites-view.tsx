@@ -1,7 +1,7 @@
 "use client";
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable } from "@tanstack/react-table";
 import { MapPin, Pencil, Plus, Trash2 } from "lucide-react";
 import { useMemo, useState } from "react";
 import { toast } from "sonner";
@@ -14,6 +14,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { apiFetch, errorText } from "@/lib/api-client";
 import type { SiteObserver, SiteRecord } from "@/lib/data/sites";
 import type { SiteInput } from "@/lib/validations/sites";
+import { InstrumentsPanel } from "./instruments-panel";
 import { SiteForm } from "./site-form";
 import { TonightPanel } from "./tonight-panel";
 
@@ -69,6 +70,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
       column.accessor("timeZone", { header: "Time zone", cell: (c) => <span className="text-xs">{c.getValue()}</span> }),
       column.accessor("observers", {
         header: "Observers",
+        enableSorting: false,
         cell: (c) => (
           <span className="flex flex-wrap gap-1">
             {c.getValue().length === 0 ? <span className="text-xs text-faint">none</span> : null}
@@ -99,7 +101,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
     ],
     [canManage],
   );
-  const table = useReactTable({ data: query.data?.sites ?? [], columns, getCoreRowModel: getCoreRowModel() });
+  const table = useReactTable({ data: query.data?.sites ?? [], columns, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   const sites = query.data?.sites ?? [];
 
   return (
@@ -129,6 +131,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
           </div>
         )}
       </section>
+      {sites.length ? <InstrumentsPanel sites={sites} canManage={canManage} /> : null}
       {sites.length ? <TonightPanel timeZone={timeZone} /> : null}
       <Dialog
         open={editing !== null}

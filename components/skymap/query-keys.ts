@@ -6,6 +6,8 @@ export const skymapKeys = {
   suggestions: (candidateId: string) => ["suggestions", candidateId] as const,
   reports: (candidateId: string) => ["reports", candidateId] as const,
   sites: ["sites"] as const,
+  /** Under the sites key, so refreshing the sites refreshes their instruments too. */
+  instruments: (siteId: string) => ["sites", siteId, "instruments"] as const,
   tonight: ["sites-tonight"] as const,
 };
 

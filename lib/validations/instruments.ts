@@ -41,3 +41,39 @@ export function footprintAreaDeg2(f: z.output<typeof footprintSchema>): number {
         4 * Math.asin(Math.sin((f.widthDeg * rad) / 2) * Math.sin((f.heightDeg * rad) / 2));
   return sr / (rad * rad);
 }
+
+/** Form values arrive as strings; empty means "not given". */
+const formNumber = <T extends z.ZodType>(rule: T) => z.preprocess((v) => (typeof v === "string" ? (v.trim() === "" ? undefined : Number(v)) : v), rule);
+const required = <T extends z.ZodType<unknown, number>>(rule: T) => formNumber(z.number({ error: "give a number" }).pipe(rule));
+
+/**
+ * The instrument form on the sites page: the same field rules as the API, with the footprint flattened into a
+ * shape and its sizes, and the filters typed as one comma-separated line. Its output is an InstrumentCreate body.
+ */
+export const instrumentFormSchema = z
+  .object({
+    name: fields.name,
+    shape: z.enum(["rectangle", "circle"]),
+    widthDeg: formNumber(z.number({ error: "give a number" }).optional()),
+    heightDeg: formNumber(z.number({ error: "give a number" }).optional()),
+    radiusDeg: formNumber(z.number({ error: "give a number" }).optional()),
+    filters: z.string().max(500, "at most 500 characters"),
+    exposureS: required(fields.exposureS),
+    overheadS: required(fields.overheadS),
+    limitingMag: formNumber(z.number({ error: "give a number" }).pipe(fields.limitingMag.unwrap()).optional()),
+  })
+  .transform(({ shape, widthDeg, heightDeg, radiusDeg, filters, limitingMag, ...rest }, ctx) => {
+    const footprint = shape === "rectangle" ? { shape, widthDeg, heightDeg } : { shape, radiusDeg };
+    const parsed = footprintSchema.safeParse(footprint);
+    const filterList = filters.split(",").map((f) => f.trim()).filter((f) => f !== "");
+    const parsedFilters = fields.filters.safeParse(filterList);
+    for (const issue of parsed.error?.issues ?? []) {
+      // A size the chosen shape needs but the form left empty arrives as undefined: say so in the form's words.
+      ctx.addIssue({ code: "custom", path: [String(issue.path.at(-1) ?? "shape")], message: issue.code === "invalid_type" ? "give a number" : issue.message });
+    }
+    for (const issue of parsedFilters.error?.issues ?? []) ctx.addIssue({ code: "custom", path: ["filters"], message: issue.message });
+    if (!parsed.success || !parsedFilters.success) return z.NEVER;
+    return { ...rest, footprint: parsed.data, filters: parsedFilters.data, limitingMag: limitingMag ?? null };
+  });
+export type InstrumentFormInput = z.input<typeof instrumentFormSchema>;
+export type InstrumentFormOutput = z.output<typeof instrumentFormSchema>;

@@ -1,6 +1,6 @@
 import { count, eq } from "drizzle-orm";
 import type { Database } from "@/db";
-import { shifts, siteObservers, sites, users } from "@/db/schema";
+import { instruments as instrumentsTable, shifts, siteObservers, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { demoPeople, demoSites } from "./scenario";
 
@@ -24,9 +24,10 @@ export async function seedDemo(db: Database, options: SeedOptions = {}): Promise
     .returning();
   const byEmail = new Map(people.map((p) => [p.email, p]));
 
-  for (const { observers, ...site } of demoSites) {
+  for (const { observers, instruments, ...site } of demoSites) {
     const [row] = await db.insert(sites).values(site).returning();
     if (!row) continue;
+    await db.insert(instrumentsTable).values(instruments.map((i) => ({ ...i, siteId: row.id, createdAt: now })));
     for (const email of observers) {
       const person = byEmail.get(email);
       if (person) await db.insert(siteObservers).values({ siteId: row.id, userId: person.id });

@@ -96,6 +96,9 @@ export default async function skymapE2E(ctx: E2EContext): Promise<void> {
     await observer.goto(`${ctx.baseUrl}/sites`);
     await observer.waitForSelector('[data-testid="sites-table"]', { timeout: 30_000 });
     check((await observer.getByRole("button", { name: "Add site" }).count()) === 0, "an observer was offered Add site");
+    await observer.waitForSelector('[data-testid="instruments-table-ALD"]', { timeout: 30_000 });
+    check((await observer.getByRole("button", { name: /^Add an instrument/ }).count()) === 0, "an observer was offered Add instrument");
+    check((await observer.getByRole("button", { name: /^Edit ALD / }).count()) === 0, "an observer was offered an instrument's Edit");
     await observer.waitForSelector('[data-testid="tonight-table"]', { timeout: 30_000 });
     const tonight = await observer.locator('[data-testid="tonight-table"]').innerText();
     check(tonight.includes(externalId), `tonight's table does not list ${externalId}`);
@@ -122,6 +125,29 @@ export default async function skymapE2E(ctx: E2EContext): Promise<void> {
     await coordinator.fill("#site-latitudeDeg", "-20");
     await coordinator.locator('[data-testid="site-form"] button[type="submit"]').click();
     await coordinator.locator('[data-testid="sites-table"]').getByText(siteName).waitFor({ timeout: 15_000 });
+
+    // Instruments of the new site: add one through the form (a refused value first), edit it, delete it.
+    const code = `E2E-${siteTag}`;
+    const instruments = coordinator.locator(`[data-testid="instruments-table-${code}"]`);
+    await coordinator.getByRole("button", { name: `Add an instrument to ${code}` }).click();
+    await coordinator.fill("#instrument-name", "E2E camera");
+    await coordinator.fill("#instrument-widthDeg", "1.5");
+    await coordinator.fill("#instrument-heightDeg", "95");
+    await coordinator.fill("#instrument-filters", "g, r");
+    await coordinator.locator('[data-testid="instrument-form"] button[type="submit"]').click();
+    await coordinator.getByText("below 90°").waitFor({ timeout: 10_000 });
+    await coordinator.fill("#instrument-heightDeg", "1");
+    await coordinator.locator('[data-testid="instrument-form"] button[type="submit"]').click();
+    await instruments.getByText("E2E camera").waitFor({ timeout: 15_000 });
+    check(/1\.5°\s×\s1°/.test(await instruments.innerText()), "the new instrument's footprint is not shown as 1.5° × 1°");
+    await coordinator.getByRole("button", { name: `Edit ${code} E2E camera` }).click();
+    await coordinator.selectOption("#instrument-shape", "circle");
+    await coordinator.fill("#instrument-radiusDeg", "0.5");
+    await coordinator.locator('[data-testid="instrument-form"] button[type="submit"]').click();
+    await instruments.getByText(/⌀\s1°\scircle/).waitFor({ timeout: 15_000 });
+    await coordinator.getByRole("button", { name: `Delete ${code} E2E camera` }).click();
+    await coordinator.getByRole("button", { name: "Delete the instrument" }).click();
+    await instruments.getByText("E2E camera").waitFor({ state: "detached", timeout: 15_000 });
     await coordinator.close();
   } catch (error) {
     for (const [index, open] of context.pages().entries()) {
