@@ -2,8 +2,10 @@
  * Planner speed (issue 17): greedy plans for four instruments (0.5, 3, 10 and 50 deg² square footprints) on a
  * sky map whose 90 % region is 1000 deg², from an nside-512 flat map and from an equivalent multi-order map
  * (order 9 where the probability is, order 4 elsewhere). Targets: each plan under 300 ms, all four under 1 s.
- * Prints figures only; the machine is shared, so figures are noisy.   npx tsx bench/plans.ts [repeats]
+ * Prints figures only; the machine is shared, so wall times are noisy: each plan's CPU time (process.cpuUsage,
+ * user + system) is printed beside it, and the medians over the repeats at the end.   npx tsx bench/plans.ts [repeats]
  */
+import os from "node:os";
 import { greedyPlan } from "@/lib/planning/greedy";
 import type { Footprint } from "@/lib/skymap/footprint";
 import { POW4, pix2vec_nest, pixelAreaSr, raDecToVec, SR_TO_DEG2 } from "@/lib/skymap/healpix";
@@ -63,26 +65,48 @@ const instruments: Array<{ name: string; footprint: Footprint }> = [0.5, 3, 10, 
   footprint: { shape: "rectangle", widthDeg: Math.sqrt(areaDeg2), heightDeg: Math.sqrt(areaDeg2) },
 }));
 
+const median = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? (s[m] ?? 0) : ((s[m - 1] ?? 0) + (s[m] ?? 0)) / 2;
+};
+
 function run(label: string, map: SkymapMap): void {
   const area90 = map.layout === "multiorder"
     ? credibleArea(map.densityPerSr, map.probability, Float64Array.from(map.order, (o) => pixelAreaSr(o) * SR_TO_DEG2), 0.9)
     : credibleArea(map.probability, map.probability, (4 * Math.PI * SR_TO_DEG2) / map.probability.length, 0.9);
   console.log(`\n${label}: ${map.probability.length} pixels, 90 % region ${area90.toFixed(0)} deg²`);
+  const wall = instruments.map(() => [] as number[]);
+  const cpu = instruments.map(() => [] as number[]);
+  const allWall: number[] = [];
+  const allCpu: number[] = [];
   for (let r = 0; r < repeats; r++) {
     let allMs = 0;
+    let allCpuMs = 0;
     const rows: string[] = [];
-    for (const { name, footprint } of instruments) {
+    for (const [k, { name, footprint }] of instruments.entries()) {
+      const cpuStart = process.cpuUsage();
       const start = performance.now();
       const plan = greedyPlan(map, footprint, { level: 0.9, maxPointings: 500 });
       const ms = performance.now() - start;
+      const used = process.cpuUsage(cpuStart);
+      const cpuMs = (used.user + used.system) / 1000;
+      wall[k]?.push(ms);
+      cpu[k]?.push(cpuMs);
       allMs += ms;
-      rows.push(`  ${name.padEnd(9)} ${ms.toFixed(0).padStart(5)} ms  ${String(plan.pointings.length).padStart(3)} pointings of ${plan.candidateCount} candidates, covers ${plan.totalProbability.toFixed(3)}`);
+      allCpuMs += cpuMs;
+      rows.push(`  ${name.padEnd(9)} ${ms.toFixed(0).padStart(5)} ms (CPU ${cpuMs.toFixed(0).padStart(4)} ms)  ${String(plan.pointings.length).padStart(3)} pointings of ${plan.candidateCount} candidates, covers ${plan.totalProbability.toFixed(3)}`);
     }
-    console.log(`run ${r + 1}: all four ${allMs.toFixed(0)} ms, peak RSS ${(process.memoryUsage().rss / 2 ** 20).toFixed(0)} MB`);
+    allWall.push(allMs);
+    allCpu.push(allCpuMs);
+    console.log(`run ${r + 1}: all four ${allMs.toFixed(0)} ms (CPU ${allCpuMs.toFixed(0)} ms), peak RSS ${(process.memoryUsage().rss / 2 ** 20).toFixed(0)} MB`);
     for (const row of rows) console.log(row);
   }
+  const cells = instruments.map(({ name }, k) => `${name} ${median(wall[k] ?? []).toFixed(0)} (${median(cpu[k] ?? []).toFixed(0)})`);
+  console.log(`median of ${repeats}, wall (CPU) ms: ${cells.join(", ")}; all four ${median(allWall).toFixed(0)} (${median(allCpu).toFixed(0)})`);
 }
 
 const flat = flatMap();
 run("flat nside 512", flat);
 run("multi-order (orders 4 and 9)", multiOrderMap(flat));
+console.log(`\npeak RSS over the whole run ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB; load average ${os.loadavg().map((l) => l.toFixed(2)).join(" ")}`);

@@ -30,25 +30,46 @@ export function candidateGridOrder(footprint: Footprint): number {
 export function candidateCentres(map: SkymapMap, footprint: Footprint, level: number): SkyPosition[] {
   const grid = candidateGridOrder(footprint);
   const threshold = credibleDensityThreshold(map, level);
-  const cells = new Set<number>();
+  // cell indices as found (neighbouring NESTED pixels share a cell, so repeats in a row are dropped at once),
+  // then sorted and made unique: no hash set over the region's pixels
+  let cells = new Float64Array(1024);
+  let count = 0;
+  const push = (cell: number) => {
+    if (count > 0 && cells[count - 1] === cell) return;
+    if (count === cells.length) {
+      const next = new Float64Array(2 * cells.length);
+      next.set(cells);
+      cells = next;
+    }
+    cells[count++] = cell;
+  };
   const add = (order: number, nest: number) => {
-    if (order >= grid) cells.add(Math.floor(nest / (POW4[order - grid] ?? 1)));
+    if (order >= grid) push(Math.floor(nest / (POW4[order - grid] ?? 1)));
     else {
       const span = POW4[grid - order] ?? 1;
-      for (let k = 0; k < span; k++) cells.add(nest * span + k);
+      for (let k = 0; k < span; k++) push(nest * span + k);
     }
   };
   if (map.layout === "multiorder") {
-    for (let i = 0; i < map.order.length; i++) {
-      if ((map.densityPerSr[i] ?? 0) >= threshold && (map.probability[i] ?? 0) > 0) add(map.order[i] ?? 0, map.ipix[i] ?? 0);
+    const { densityPerSr, probability, order, ipix } = map;
+    for (let i = 0; i < order.length; i++) {
+      if ((densityPerSr[i] ?? 0) >= threshold && (probability[i] ?? 0) > 0) add(order[i] ?? 0, ipix[i] ?? 0);
     }
   } else {
     const ring = map.layout === "flat-ring";
-    for (let i = 0; i < map.probability.length; i++) {
-      const p = map.probability[i] ?? 0;
+    const { probability } = map;
+    for (let i = 0; i < probability.length; i++) {
+      const p = probability[i] ?? 0;
       if (p >= threshold && p > 0) add(map.order, ring ? ringToNest(map.nside, i) : i);
     }
   }
+  const sorted = cells.subarray(0, count).sort();
   const nside = 2 ** grid;
-  return [...cells].sort((a, b) => a - b).map((cell) => vecToRaDec(pix2vec_nest(nside, cell)));
+  const centres: SkyPosition[] = [];
+  for (let k = 0; k < sorted.length; k++) {
+    const cell = sorted[k] ?? 0;
+    if (k > 0 && sorted[k - 1] === cell) continue;
+    centres.push(vecToRaDec(pix2vec_nest(nside, cell)));
+  }
+  return centres;
 }

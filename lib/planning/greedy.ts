@@ -1,5 +1,5 @@
 import { placeFootprint, type Footprint } from "@/lib/skymap/footprint";
-import { footprintPixels } from "@/lib/skymap/footprint-pixels";
+import { footprintPixelIndices } from "@/lib/skymap/footprint-pixels";
 import type { SkymapMap, SkyPosition } from "@/lib/skymap/types";
 import { candidateCentres } from "./candidates";
 import { MaxHeap } from "./heap";
@@ -50,21 +50,26 @@ export function greedyPlan(map: SkymapMap, footprint: Footprint, options: Greedy
   const covered = new Uint8Array(probability.length);
   let avoidedProbability = 0;
   for (const tile of options.avoid ?? []) {
-    for (const i of footprintPixels(map, placeFootprint(tile.footprint, tile.raDeg, tile.decDeg))) {
+    for (const i of footprintPixelIndices(map, placeFootprint(tile.footprint, tile.raDeg, tile.decDeg))) {
       if (covered[i]) continue;
       covered[i] = 1;
       avoidedProbability += probability[i] ?? 0;
     }
   }
   const centres = candidateCentres(map, footprint, options.level);
-  const pixelsOf = centres.map((c) => Uint32Array.from(footprintPixels(map, placeFootprint(footprint, c.raDeg, c.decDeg))));
+  const pixelsOf = centres.map((c) => footprintPixelIndices(map, placeFootprint(footprint, c.raDeg, c.decDeg)));
   const gainOf = (k: number) => {
+    const pixels = pixelsOf[k];
+    if (!pixels) return 0;
     let sum = 0;
-    for (const i of pixelsOf[k] ?? []) if (!covered[i]) sum += probability[i] ?? 0;
+    for (let n = 0; n < pixels.length; n++) {
+      const i = pixels[n] ?? 0;
+      if (!covered[i]) sum += probability[i] ?? 0;
+    }
     return sum;
   };
-  const heap = new MaxHeap();
-  centres.forEach((_, k) => heap.push(k, gainOf(k)));
+  const heap = new MaxHeap(centres.length);
+  for (let k = 0; k < centres.length; k++) heap.push(k, gainOf(k));
 
   const pointings: GreedyPointing[] = [];
   let reached = avoidedProbability;
@@ -74,7 +79,8 @@ export function greedyPlan(map: SkymapMap, footprint: Footprint, options: Greedy
     if (!best || !(best.gain > 0)) break;
     const pixels = pixelsOf[best.index] ?? new Uint32Array(0);
     let own = 0;
-    for (const i of pixels) {
+    for (let n = 0; n < pixels.length; n++) {
+      const i = pixels[n] ?? 0;
       own += probability[i] ?? 0;
       covered[i] = 1;
     }
@@ -100,12 +106,14 @@ function takeBest(heap: MaxHeap, gainOf: (k: number) => number): { index: number
 
 /** Probability of the union of the given pointings' pixels. */
 export function unionProbability(probability: Float64Array, pointings: ReadonlyArray<{ pixels: Uint32Array }>): number {
-  const seen = new Set<number>();
+  const seen = new Uint8Array(probability.length);
   let sum = 0;
   for (const p of pointings) {
-    for (const i of p.pixels) {
-      if (seen.has(i)) continue;
-      seen.add(i);
+    const { pixels } = p;
+    for (let n = 0; n < pixels.length; n++) {
+      const i = pixels[n] ?? 0;
+      if (seen[i]) continue;
+      seen[i] = 1;
       sum += probability[i] ?? 0;
     }
   }

@@ -1,4 +1,4 @@
-import { forEachPixelInDisc } from "./disc";
+import { collectPixelsInDisc, DiscPixels } from "./disc";
 import { placeFootprint, type Footprint, type PlacedFootprint } from "./footprint";
 import { POW4, ringToNest } from "./healpix";
 import { multiOrderCentres } from "./multiorder";
@@ -11,28 +11,58 @@ import type { FlatSkymap, MultiOrderSkymap, SkymapMap } from "./types";
  * with inclusive=False, applied per order.
  */
 export function footprintPixels(map: SkymapMap, placed: PlacedFootprint): number[] {
-  const out: number[] = [];
+  return Array.from(footprintPixelIndices(map, placed));
+}
+
+/** footprintPixels as a fresh typed array (no per-pixel boxing), same pixels in the same order. */
+export function footprintPixelIndices(map: SkymapMap, placed: PlacedFootprint): Uint32Array {
+  const out = scratch;
+  out.length = 0;
   if (map.layout === "multiorder") multiOrderPixels(map, placed, out);
   else flatPixels(map, placed, out);
-  return out;
+  return out.values.slice(0, out.length);
 }
 
 /** Sum of the probabilities of the pixels whose centres fall inside the footprint placed at (raDeg, decDeg). */
 export function footprintProbability(map: SkymapMap, footprint: Footprint, raDeg: number, decDeg: number): number {
   const { probability } = map;
   let sum = 0;
-  for (const i of footprintPixels(map, placeFootprint(footprint, raDeg, decDeg))) sum += probability[i] ?? 0;
+  for (const i of footprintPixelIndices(map, placeFootprint(footprint, raDeg, decDeg))) sum += probability[i] ?? 0;
   return sum;
 }
 
+/** A growing list of pixel indices, reused between calls (the search functions never call out, so never re-enter). */
+interface IndexList {
+  length: number;
+  values: Uint32Array;
+}
+
+const scratch: IndexList = { length: 0, values: new Uint32Array(4096) };
+const disc = new DiscPixels();
+
+function append(out: IndexList, index: number): void {
+  if (out.length === out.values.length) {
+    const next = new Uint32Array(2 * out.values.length);
+    next.set(out.values);
+    out.values = next;
+  }
+  out.values[out.length++] = index;
+}
+
 /** Flat maps: the ring-wise disc query over the bounding cone, then the exact test on each candidate centre. */
-function flatPixels(map: FlatSkymap, placed: PlacedFootprint, out: number[]): void {
+function flatPixels(map: FlatSkymap, placed: PlacedFootprint, out: IndexList): void {
   const { nside } = map;
   const ring = map.layout === "flat-ring";
-  forEachPixelInDisc(nside, placed.centre, Math.cos(placed.boundRadiusRad), (ringPix, z, phi) => {
+  collectPixelsInDisc(nside, placed.centre, Math.cos(placed.boundRadiusRad), disc);
+  const { ringPix, z: zs, phi: phis } = disc;
+  for (let k = 0; k < disc.length; k++) {
+    const z = zs[k] ?? 0;
+    const phi = phis[k] ?? 0;
     const s = Math.sqrt((1 - z) * (1 + z));
-    if (placed.contains(s * Math.cos(phi), s * Math.sin(phi), z)) out.push(ring ? ringPix : ringToNest(nside, ringPix));
-  });
+    if (!placed.contains(s * Math.cos(phi), s * Math.sin(phi), z)) continue;
+    const p = ringPix[k] ?? 0;
+    append(out, ring ? p : ringToNest(nside, p));
+  }
 }
 
 /** Pixels of a multi-order map grouped by the cell (NESTED, at a bucket order) that holds each centre. */
@@ -84,17 +114,19 @@ function bucketIndex(map: MultiOrderSkymap): BucketIndex {
  * Cells whose centres lie within the bounding radius plus one cell radius hold every pixel centre that can be
  * inside (healpy's max_pixrad · nside stays below 1.07 at every order; 1.1 is used).
  */
-function multiOrderPixels(map: MultiOrderSkymap, placed: PlacedFootprint, out: number[]): void {
+function multiOrderPixels(map: MultiOrderSkymap, placed: PlacedFootprint, out: IndexList): void {
   const { order, start, members } = bucketIndex(map);
   const centres = multiOrderCentres(map);
   const nside = 2 ** order;
   const radius = Math.min(Math.PI, placed.boundRadiusRad + 1.1 / nside);
-  forEachPixelInDisc(nside, placed.centre, Math.cos(radius), (ringPix) => {
-    const cell = ringToNest(nside, ringPix);
+  collectPixelsInDisc(nside, placed.centre, Math.cos(radius), disc);
+  const { ringPix } = disc;
+  for (let c = 0; c < disc.length; c++) {
+    const cell = ringToNest(nside, ringPix[c] ?? 0);
     const end = start[cell + 1] ?? 0;
     for (let k = start[cell] ?? 0; k < end; k++) {
       const i = members[k] ?? 0;
-      if (placed.contains(centres[3 * i] ?? 0, centres[3 * i + 1] ?? 0, centres[3 * i + 2] ?? 0)) out.push(i);
+      if (placed.contains(centres[3 * i] ?? 0, centres[3 * i + 1] ?? 0, centres[3 * i + 2] ?? 0)) append(out, i);
     }
-  });
+  }
 }
