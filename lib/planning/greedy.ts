@@ -1,7 +1,9 @@
 import { placeFootprint, type Footprint } from "@/lib/skymap/footprint";
 import { footprintPixelIndices } from "@/lib/skymap/footprint-pixels";
+import { FootprintSearch } from "@/lib/skymap/footprint-search";
+import { newIndexList } from "@/lib/skymap/index-list";
 import type { SkymapMap, SkyPosition } from "@/lib/skymap/types";
-import { candidateCentres } from "./candidates";
+import { candidateCentres, candidateGridOrder } from "./candidates";
 import { MaxHeap } from "./heap";
 
 export interface PlacedTile extends SkyPosition {
@@ -57,13 +59,21 @@ export function greedyPlan(map: SkymapMap, footprint: Footprint, options: Greedy
     }
   }
   const centres = candidateCentres(map, footprint, options.level);
-  const pixelsOf = centres.map((c) => footprintPixelIndices(map, placeFootprint(footprint, c.raDeg, c.decDeg)));
+  // every candidate's pixels in one array (candidate k: pool[first[k]] … pool[first[k + 1] − 1]); the search
+  // buckets pixels by the candidate grid's cells (a quarter to a half of the footprint's side)
+  const search = new FootprintSearch(map, candidateGridOrder(footprint));
+  const list = newIndexList(1 << 16);
+  const first = new Float64Array(centres.length + 1);
+  for (const [k, c] of centres.entries()) {
+    search.collect(placeFootprint(footprint, c.raDeg, c.decDeg), list);
+    first[k + 1] = list.length;
+  }
+  const pool = list.values;
   const gainOf = (k: number) => {
-    const pixels = pixelsOf[k];
-    if (!pixels) return 0;
+    const end = first[k + 1] ?? 0;
     let sum = 0;
-    for (let n = 0; n < pixels.length; n++) {
-      const i = pixels[n] ?? 0;
+    for (let n = first[k] ?? 0; n < end; n++) {
+      const i = pool[n] ?? 0;
       if (!covered[i]) sum += probability[i] ?? 0;
     }
     return sum;
@@ -77,7 +87,7 @@ export function greedyPlan(map: SkymapMap, footprint: Footprint, options: Greedy
   while (pointings.length < options.maxPointings && reached < options.level) {
     const best = takeBest(heap, gainOf);
     if (!best || !(best.gain > 0)) break;
-    const pixels = pixelsOf[best.index] ?? new Uint32Array(0);
+    const pixels = pool.slice(first[best.index] ?? 0, first[best.index + 1] ?? 0);
     let own = 0;
     for (let n = 0; n < pixels.length; n++) {
       const i = pixels[n] ?? 0;

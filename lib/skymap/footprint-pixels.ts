@@ -1,6 +1,7 @@
 import { collectPixelsInDisc, DiscPixels } from "./disc";
 import { placeFootprint, type Footprint, type PlacedFootprint } from "./footprint";
 import { POW4, ringToNest } from "./healpix";
+import { appendIndex, newIndexList, type IndexList } from "./index-list";
 import { multiOrderCentres } from "./multiorder";
 import type { FlatSkymap, MultiOrderSkymap, SkymapMap } from "./types";
 
@@ -31,23 +32,9 @@ export function footprintProbability(map: SkymapMap, footprint: Footprint, raDeg
   return sum;
 }
 
-/** A growing list of pixel indices, reused between calls (the search functions never call out, so never re-enter). */
-interface IndexList {
-  length: number;
-  values: Uint32Array;
-}
-
-const scratch: IndexList = { length: 0, values: new Uint32Array(4096) };
+// reused between calls: the search functions never call out, so never re-enter
+const scratch = newIndexList();
 const disc = new DiscPixels();
-
-function append(out: IndexList, index: number): void {
-  if (out.length === out.values.length) {
-    const next = new Uint32Array(2 * out.values.length);
-    next.set(out.values);
-    out.values = next;
-  }
-  out.values[out.length++] = index;
-}
 
 /** Flat maps: the ring-wise disc query over the bounding cone, then the exact test on each candidate centre. */
 function flatPixels(map: FlatSkymap, placed: PlacedFootprint, out: IndexList): void {
@@ -61,12 +48,12 @@ function flatPixels(map: FlatSkymap, placed: PlacedFootprint, out: IndexList): v
     const s = Math.sqrt((1 - z) * (1 + z));
     if (!placed.contains(s * Math.cos(phi), s * Math.sin(phi), z)) continue;
     const p = ringPix[k] ?? 0;
-    append(out, ring ? p : ringToNest(nside, p));
+    appendIndex(out, ring ? p : ringToNest(nside, p));
   }
 }
 
 /** Pixels of a multi-order map grouped by the cell (NESTED, at a bucket order) that holds each centre. */
-interface BucketIndex {
+export interface BucketIndex {
   order: number;
   /** members[start[cell]] … members[start[cell + 1] − 1] are the map's pixels whose centres lie in cell. */
   start: Uint32Array;
@@ -81,7 +68,7 @@ const indexCache = new WeakMap<MultiOrderSkymap, BucketIndex>();
  * its ancestor cell at B; for o < B its centre is the corner its four children share, which lies in (the closed
  * cell of) its first child at B. Every pixel is therefore within one cell radius of its cell's centre.
  */
-function bucketIndex(map: MultiOrderSkymap): BucketIndex {
+export function bucketIndex(map: MultiOrderSkymap): BucketIndex {
   const cached = indexCache.get(map);
   if (cached) return cached;
   const count = map.order.length;
@@ -126,7 +113,7 @@ function multiOrderPixels(map: MultiOrderSkymap, placed: PlacedFootprint, out: I
     const end = start[cell + 1] ?? 0;
     for (let k = start[cell] ?? 0; k < end; k++) {
       const i = members[k] ?? 0;
-      if (placed.contains(centres[3 * i] ?? 0, centres[3 * i + 1] ?? 0, centres[3 * i + 2] ?? 0)) append(out, i);
+      if (placed.contains(centres[3 * i] ?? 0, centres[3 * i + 1] ?? 0, centres[3 * i + 2] ?? 0)) appendIndex(out, i);
     }
   }
 }

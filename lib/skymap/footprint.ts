@@ -13,6 +13,20 @@ export interface PlacedFootprint {
   boundRadiusRad: number;
   /** True when the unit vector (x, y, z) lies inside (edges included). */
   contains(x: number, y: number, z: number): boolean;
+  /**
+   * The same test as plain numbers, for loops over many pixels (footprint-search.ts inlines it): a circle is
+   * c·p ≥ cosRadius; a rectangle is c·p > 0, |e·p| ≤ tanHalfWidth·(c·p), |n·p| ≤ tanHalfHeight·(c·p).
+   */
+  test: FootprintTest;
+}
+
+export interface FootprintTest {
+  circle: boolean;
+  cosRadius: number;
+  tanHalfWidth: number;
+  tanHalfHeight: number;
+  east: V3;
+  north: V3;
 }
 
 const RAD = Math.PI / 180;
@@ -40,7 +54,8 @@ export function placeFootprint(footprint: Footprint, raDeg: number, decDeg: numb
   if (footprint.shape === "circle") {
     const radius = Math.min(Math.PI, footprint.radiusDeg * RAD);
     const cosRadius = Math.cos(radius);
-    return { centre, boundRadiusRad: radius, contains: (x, y, z) => x * cx + y * cy + z * cz >= cosRadius };
+    const test = { circle: true, cosRadius, tanHalfWidth: 0, tanHalfHeight: 0, east: [0, 0, 0] as V3, north: [0, 0, 0] as V3 };
+    return { centre, boundRadiusRad: radius, test, contains: (x, y, z) => x * cx + y * cy + z * cz >= cosRadius };
   }
   const { east, north } = localEastNorth(raDeg, decDeg);
   const [ex, ey, ez] = east;
@@ -50,6 +65,7 @@ export function placeFootprint(footprint: Footprint, raDeg: number, decDeg: numb
   return {
     centre,
     boundRadiusRad: Math.atan(Math.hypot(xi, eta)), // the corners are the farthest points
+    test: { circle: false, cosRadius: -1, tanHalfWidth: xi, tanHalfHeight: eta, east, north },
     contains(x, y, z) {
       const d = x * cx + y * cy + z * cz;
       if (d <= 0) return false;

@@ -84,6 +84,44 @@ function compactBits32(v: number): number {
 }
 
 const JPLL = [1, 3, 5, 7, 0, 2, 4, 6, 1, 3, 5, 7];
+const JRLL = [2, 2, 2, 2, 3, 3, 3, 3, 4, 4, 4, 4];
+
+/**
+ * RING index and centre (z = cos θ, φ in radians) of a NESTED pixel, nside ≤ 2^15, written into out[0], out[1],
+ * out[2] without allocating: face and in-face (x, y) by bit de-interleaving, then the ring number and the position
+ * in the ring (HEALPix nest2xyf and pix2loc; Górski et al. 2005, ApJ 622, 759, §4).
+ */
+export function nestToRingCentre(nside: number, pix: number, out: Float64Array): void {
+  const perFace = nside * nside;
+  const face = Math.floor(pix / perFace);
+  const inFace = pix - face * perFace;
+  const ix = compactBits32(inFace);
+  const iy = compactBits32(inFace >>> 1);
+  const jr = (JRLL[face] ?? 0) * nside - ix - iy - 1; // ring number, 1 … 4·nside − 1
+  let nr: number, z: number, kshift: number, ringStart: number;
+  if (jr < nside) {
+    nr = jr;
+    z = 1 - (nr * nr) / (3 * perFace);
+    kshift = 0;
+    ringStart = 2 * nr * (nr - 1);
+  } else if (jr > 3 * nside) {
+    nr = 4 * nside - jr;
+    z = (nr * nr) / (3 * perFace) - 1;
+    kshift = 0;
+    ringStart = 12 * perFace - 2 * nr * (nr + 1);
+  } else {
+    nr = nside;
+    z = 4 / 3 - (2 * jr) / (3 * nside); // the ring heights of disc.ts, to the last bit
+    kshift = (jr - nside) & 1;
+    ringStart = 2 * nside * (nside - 1) + (jr - nside) * 4 * nside;
+  }
+  let jp = ((JPLL[face] ?? 0) * nr + ix - iy + 1 + kshift) / 2; // position in the ring, 1 … 4·nr
+  if (jp > 4 * nr) jp -= 4 * nr;
+  if (jp < 1) jp += 4 * nr;
+  out[0] = ringStart + jp - 1;
+  out[1] = z;
+  out[2] = (jp - (kshift + 1) * 0.5) * (Math.PI / (2 * nr));
+}
 
 /**
  * RING → NESTED index for nside ≤ 2^15 without allocating (ring2xyf of Górski et al. 2005, §4,

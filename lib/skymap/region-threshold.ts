@@ -10,10 +10,31 @@ const BINS = 4096;
  * Flat maps rank by probability (equal-area pixels), multi-order maps by density per steradian.
  */
 export function credibleDensityThreshold(map: SkymapMap, level: number): number {
+  // maps are never changed after loading, so the threshold is kept per map object and level (several plans,
+  // one per instrument, are made on the same cached map)
+  let byLevel = memo.get(map);
+  if (!byLevel) {
+    byLevel = new Map();
+    memo.set(map, byLevel);
+  }
+  const known = byLevel.get(level);
+  if (known !== undefined) return known;
+  const threshold = computeThreshold(map, level);
+  byLevel.set(level, threshold);
+  return threshold;
+}
+
+const memo = new WeakMap<SkymapMap, Map<number, number>>();
+
+function computeThreshold(map: SkymapMap, level: number): number {
   const density = map.layout === "multiorder" ? map.densityPerSr : map.probability;
   const { probability } = map;
+  const n = density.length;
   let hi = 0;
-  for (let i = 0; i < density.length; i++) if ((density[i] ?? 0) > hi) hi = density[i] ?? 0;
+  for (let i = 0; i < n; i++) {
+    const d = density[i] ?? 0;
+    if (d > hi) hi = d;
+  }
   if (!(hi > 0)) return 0;
   let lo = 0;
   let topOpen = false; // after the first pass the top edge belongs to bins already taken
@@ -21,11 +42,21 @@ export function credibleDensityThreshold(map: SkymapMap, level: number): number 
   for (let pass = 0; pass < 2; pass++) {
     const prob = new Float64Array(BINS);
     const scale = BINS / (hi - lo);
-    for (let i = 0; i < density.length; i++) {
-      const d = density[i] ?? 0;
-      if (!(d > 0) || d < lo || d > hi || (topOpen && d === hi)) continue;
-      const b = Math.min(BINS - 1, Math.floor((d - lo) * scale));
-      prob[b] = (prob[b] ?? 0) + (probability[i] ?? 0);
+    if (lo === 0 && !topOpen) {
+      // first pass: every positive density is in range (hi is the maximum) and d − 0 = d
+      for (let i = 0; i < n; i++) {
+        const d = density[i] ?? 0;
+        if (!(d > 0)) continue;
+        const b = Math.min(BINS - 1, Math.floor(d * scale));
+        prob[b] = (prob[b] ?? 0) + (probability[i] ?? 0);
+      }
+    } else {
+      for (let i = 0; i < n; i++) {
+        const d = density[i] ?? 0;
+        if (d < lo || !(d > 0) || d > hi || (topOpen && d === hi)) continue;
+        const b = Math.min(BINS - 1, Math.floor((d - lo) * scale));
+        prob[b] = (prob[b] ?? 0) + (probability[i] ?? 0);
+      }
     }
     let crossing = -1;
     for (let b = BINS - 1; b >= 0; b--) {
