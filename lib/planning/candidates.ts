@@ -1,5 +1,5 @@
 import { POW4, ringToNest, pix2vec_nest, vecToRaDec } from "@/lib/skymap/healpix";
-import { credibleDensityThreshold } from "@/lib/skymap/region-threshold";
+import { credibleRegionPixels } from "@/lib/skymap/region-threshold";
 import type { Footprint } from "@/lib/skymap/footprint";
 import type { SkymapMap, SkyPosition } from "@/lib/skymap/types";
 
@@ -29,7 +29,6 @@ export function candidateGridOrder(footprint: Footprint): number {
  */
 export function candidateCentres(map: SkymapMap, footprint: Footprint, level: number): SkyPosition[] {
   const grid = candidateGridOrder(footprint);
-  const threshold = credibleDensityThreshold(map, level);
   // cell indices as found (neighbouring NESTED pixels share a cell, so repeats in a row are dropped at once),
   // then sorted and made unique: no hash set over the region's pixels
   let cells = new Float64Array(1024);
@@ -50,17 +49,18 @@ export function candidateCentres(map: SkymapMap, footprint: Footprint, level: nu
       for (let k = 0; k < span; k++) push(nest * span + k);
     }
   };
+  const region = credibleRegionPixels(map, level);
   if (map.layout === "multiorder") {
-    const { densityPerSr, probability, order, ipix } = map;
-    for (let i = 0; i < order.length; i++) {
-      if ((densityPerSr[i] ?? 0) >= threshold && (probability[i] ?? 0) > 0) add(order[i] ?? 0, ipix[i] ?? 0);
+    const { order, ipix } = map;
+    for (let k = 0; k < region.length; k++) {
+      const i = region[k] ?? 0;
+      add(order[i] ?? 0, ipix[i] ?? 0);
     }
   } else {
     const ring = map.layout === "flat-ring";
-    const { probability } = map;
-    for (let i = 0; i < probability.length; i++) {
-      const p = probability[i] ?? 0;
-      if (p >= threshold && p > 0) add(map.order, ring ? ringToNest(map.nside, i) : i);
+    for (let k = 0; k < region.length; k++) {
+      const i = region[k] ?? 0;
+      add(map.order, ring ? ringToNest(map.nside, i) : i);
     }
   }
   const sorted = cells.subarray(0, count).sort();

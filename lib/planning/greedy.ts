@@ -64,7 +64,8 @@ export function greedyPlan(map: SkymapMap, footprint: Footprint, options: Greedy
   const search = new FootprintSearch(map, candidateGridOrder(footprint));
   const list = newIndexList(1 << 16);
   const first = new Float64Array(centres.length + 1);
-  for (const [k, c] of centres.entries()) {
+  for (let k = 0; k < centres.length; k++) {
+    const c = centres[k] ?? { raDeg: 0, decDeg: 0 };
     search.collect(placeFootprint(footprint, c.raDeg, c.decDeg), list);
     first[k + 1] = list.length;
   }

@@ -26,10 +26,13 @@ const CELL_RADIUS_NSIDE = 1.1;
 export class FootprintSearch {
   private readonly disc = new DiscPixels();
   private cells = new Float64Array(1024);
+  private kinds = new Uint8Array(1024);
   private readonly nside: number;
   /** Cell radius to add to the bounding radius (0 when the cells are the map's own pixels). */
   private readonly marginRad: number;
   private readonly flat: FlatCells | null;
+  /** Cell radius for the whole-cell tests; 0 (no cell tests) when cells hold few pixels and testing them is as cheap. */
+  private readonly classifyRad: number;
 
   /** bucketOrder: the order of the cells to group pixels by (flat maps: capped at the map's order and at 8). */
   constructor(private readonly map: SkymapMap, bucketOrder: number) {
@@ -37,11 +40,13 @@ export class FootprintSearch {
       this.nside = 2 ** bucketIndex(map).order;
       this.marginRad = CELL_RADIUS_NSIDE / this.nside;
       this.flat = null;
+      this.classifyRad = this.marginRad;
     } else {
       const order = Math.max(0, Math.min(bucketOrder, map.order, MAX_FLAT_BUCKET_ORDER));
       this.nside = 2 ** order;
       this.marginRad = order === map.order ? 0 : CELL_RADIUS_NSIDE / this.nside;
       this.flat = new FlatCells(map.nside, map.order - order, map.layout === "flat-ring", order);
+      this.classifyRad = this.flat.span >= 16 ? this.marginRad : 0;
     }
   }
 
@@ -52,32 +57,93 @@ export class FootprintSearch {
     collectPixelsInDisc(this.nside, placed.centre, Math.cos(radius), disc);
     const n = disc.length;
     const { ringPix } = disc;
-    if (this.cells.length < n) this.cells = new Float64Array(2 * n);
+    if (this.cells.length < n) {
+      this.cells = new Float64Array(2 * n);
+      this.kinds = new Uint8Array(2 * n);
+    }
     const cells = this.cells;
+    const kinds = this.kinds;
+    classifyCells(disc, n, this.classifyRad, placed, kinds);
     const flat = this.flat;
     if (flat) {
       // flat cells are kept by their RING index: no index conversion per query
       for (let c = 0; c < n; c++) cells[c] = flat.ensure(ringPix[c] ?? 0);
-      scanRuns(flat.centres, flat.ids, cells, n, flat.span, placed, out);
+      scanRuns(flat.centres, flat.ids, cells, kinds, n, flat.span, placed, out);
     } else {
       const multi = this.map as MultiOrderSkymap;
       const { order, start, members } = bucketIndex(multi);
       const nestOf = nestOfRingCells(multi, order);
       for (let c = 0; c < n; c++) cells[c] = nestOf[ringPix[c] ?? 0] ?? 0;
-      scanMembers(multiOrderCentres(multi), start, members, cells, n, placed, out);
+      scanMembers(multiOrderCentres(multi), start, members, cells, kinds, n, placed, out);
     }
   }
 }
 
+const OUTSIDE = 0;
+const INSIDE = 1;
+const MIXED = 2;
+/** Margin for the cell tests, far above the rounding of the per-pixel test (~1e-16), far below any cell. */
+const CLASSIFY_EPS = 1e-12;
+
+/**
+ * Marks each cell of the walk as wholly outside, wholly inside or mixed, so only mixed cells test their pixels.
+ * Every pixel centre of a cell lies within cellRadius of the cell's centre q (the cap C(q, r)). A rectangle is
+ * the intersection of the half-spaces p·(±e − ξc) ≤ 0, p·(±n − ηc) ≤ 0 and p·c > 0 (footprint.ts); a cap lies
+ * in p·m ≤ 0 when q·m ≤ −sin r·|m| and outside it when q·m ≥ sin r·|m|, with |±e − ξc| = √(1 + ξ²). A circle of
+ * radius R holds the cap when the angle to q is at most R − r and misses it beyond R + r. The margin makes a
+ * wholly-inside or wholly-outside cell give the same answer the per-pixel test would for every member.
+ */
+function classifyCells(disc: DiscPixels, n: number, cellRadius: number, placed: PlacedFootprint, kinds: Uint8Array): void {
+  if (!(cellRadius > 0)) {
+    kinds.fill(MIXED, 0, n); // the cells are the map's own pixels: one test each anyway
+    return;
+  }
+  const { z: zs, phi: phis } = disc;
+  const [cx, cy, cz] = placed.centre;
+  const { circle, cosRadius, tanHalfWidth: xi, tanHalfHeight: eta, east, north } = placed.test;
+  const [ex, ey, ez] = east;
+  const [nx, ny, nz] = north;
+  const sinR = Math.sin(cellRadius);
+  const kx = sinR * Math.sqrt(1 + xi * xi) + CLASSIFY_EPS;
+  const ky = sinR * Math.sqrt(1 + eta * eta) + CLASSIFY_EPS;
+  const kc = sinR + CLASSIFY_EPS;
+  const radius = Math.acos(Math.max(-1, Math.min(1, cosRadius)));
+  const cosIn = radius > cellRadius ? Math.cos(radius - cellRadius) + CLASSIFY_EPS : 2;
+  const cosOut = Math.cos(Math.min(Math.PI, radius + cellRadius)) - CLASSIFY_EPS;
+  for (let c = 0; c < n; c++) {
+    const z = zs[c] ?? 0;
+    const phi = phis[c] ?? 0;
+    const s = Math.sqrt((1 - z) * (1 + z));
+    const x = s * Math.cos(phi);
+    const y = s * Math.sin(phi);
+    const d = x * cx + y * cy + z * cz;
+    if (circle) {
+      kinds[c] = d < cosOut ? OUTSIDE : d >= cosIn ? INSIDE : MIXED;
+      continue;
+    }
+    const a = Math.abs(x * ex + y * ey + z * ez) - xi * d;
+    const b = Math.abs(x * nx + y * ny + z * nz) - eta * d;
+    if (a >= kx || b >= ky || d <= -kc) kinds[c] = OUTSIDE;
+    else if (a <= -kx && b <= -ky && d >= kc) kinds[c] = INSIDE;
+    else kinds[c] = MIXED;
+  }
+}
+
 /** Flat maps: cell c's pixels are pool entries cells[c] … cells[c] + span − 1. */
-function scanRuns(centres: Float64Array, ids: Uint32Array, cells: Float64Array, n: number, span: number, placed: PlacedFootprint, out: IndexList): void {
+function scanRuns(centres: Float64Array, ids: Uint32Array, cells: Float64Array, kinds: Uint8Array, n: number, span: number, placed: PlacedFootprint, out: IndexList): void {
   const [cx, cy, cz] = placed.centre;
   const { circle, cosRadius, tanHalfWidth: xi, tanHalfHeight: eta, east, north } = placed.test;
   const [ex, ey, ez] = east;
   const [nx, ny, nz] = north;
   for (let c = 0; c < n; c++) {
+    const kind = kinds[c] ?? MIXED;
+    if (kind === OUTSIDE) continue;
     const from = cells[c] ?? 0;
     const to = from + span;
+    if (kind === INSIDE) {
+      for (let i = from; i < to; i++) appendIndex(out, ids[i] ?? 0);
+      continue;
+    }
     for (let i = from; i < to; i++) {
       const x = centres[3 * i] ?? 0;
       const y = centres[3 * i + 1] ?? 0;
@@ -92,14 +158,20 @@ function scanRuns(centres: Float64Array, ids: Uint32Array, cells: Float64Array, 
 }
 
 /** Multi-order maps: cell c's pixels are members[start[cells[c]]] … (footprint-pixels.ts's bucket index). */
-function scanMembers(centres: Float64Array, start: Uint32Array, members: Uint32Array, cells: Float64Array, n: number, placed: PlacedFootprint, out: IndexList): void {
+function scanMembers(centres: Float64Array, start: Uint32Array, members: Uint32Array, cells: Float64Array, kinds: Uint8Array, n: number, placed: PlacedFootprint, out: IndexList): void {
   const [cx, cy, cz] = placed.centre;
   const { circle, cosRadius, tanHalfWidth: xi, tanHalfHeight: eta, east, north } = placed.test;
   const [ex, ey, ez] = east;
   const [nx, ny, nz] = north;
   for (let c = 0; c < n; c++) {
+    const kind = kinds[c] ?? MIXED;
+    if (kind === OUTSIDE) continue;
     const cell = cells[c] ?? 0;
     const to = start[cell + 1] ?? 0;
+    if (kind === INSIDE) {
+      for (let k = start[cell] ?? 0; k < to; k++) appendIndex(out, members[k] ?? 0);
+      continue;
+    }
     for (let k = start[cell] ?? 0; k < to; k++) {
       const i = members[k] ?? 0;
       const x = centres[3 * i] ?? 0;

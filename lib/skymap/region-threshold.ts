@@ -79,3 +79,30 @@ function computeThreshold(map: SkymapMap, level: number): number {
   // a hair below the bin's edge so rounding in the bin arithmetic never drops a pixel of the region
   return lo * (1 - 1e-9);
 }
+
+const regionMemo = new WeakMap<SkymapMap, Map<number, Uint32Array>>();
+
+/**
+ * Indices (into the map's arrays, ascending) of the pixels of the `level` region: density at or above
+ * credibleDensityThreshold and probability above 0. Kept per map object and level like the threshold, so plans
+ * after the first on a map walk the region's pixels instead of the whole map.
+ */
+export function credibleRegionPixels(map: SkymapMap, level: number): Uint32Array {
+  let byLevel = regionMemo.get(map);
+  if (!byLevel) {
+    byLevel = new Map();
+    regionMemo.set(map, byLevel);
+  }
+  const known = byLevel.get(level);
+  if (known) return known;
+  const threshold = credibleDensityThreshold(map, level);
+  const density = map.layout === "multiorder" ? map.densityPerSr : map.probability;
+  const { probability } = map;
+  let count = 0;
+  for (let i = 0; i < density.length; i++) if ((density[i] ?? 0) >= threshold && (probability[i] ?? 0) > 0) count++;
+  const pixels = new Uint32Array(count);
+  let k = 0;
+  for (let i = 0; i < density.length; i++) if ((density[i] ?? 0) >= threshold && (probability[i] ?? 0) > 0) pixels[k++] = i;
+  byLevel.set(level, pixels);
+  return pixels;
+}
