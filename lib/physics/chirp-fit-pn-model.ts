@@ -34,6 +34,12 @@ export function pnEvaluator(samples: Samples, table: PnTable): Evaluator {
   const { t, f, sigma } = samples;
   const { cubic, intervals, h, iscoSlope } = table;
   const inverseH = 1 / h;
+  // 1/σ² once per evaluator, not once per pass (a fit makes two or more passes with each evaluator)
+  let weights: Float64Array | null = null;
+  if (sigma !== undefined) {
+    weights = new Float64Array(sigma.length);
+    for (let i = 0; i < sigma.length; i++) weights[i] = 1 / ((sigma[i] as number) * (sigma[i] as number));
+  }
   return (point: ModelPoint, inverseNormal): Evaluation | null => {
     const massS = totalMassSeconds(table, point.logA);
     // position = (ln τ − ln M − LN_U_MIN) / h, so one log per sample.
@@ -81,7 +87,7 @@ export function pnEvaluator(samples: Samples, table: PnTable): Evaluator {
       }
       const model = scale * z;
       const r = (f[i] as number) - model;
-      const wi = sigma === undefined ? 1 : 1 / ((sigma[i] as number) * (sigma[i] as number));
+      const wi = weights === null ? 1 : (weights[i] as number);
       const ja = -scale * (z + dz);
       const jt = (scale * dz) / tau;
       const wr = wi * r;

@@ -43,9 +43,11 @@ export function subsample(samples: Samples): Samples {
   // One plain loop over precomputed indices (Array.from with a callback was a measurable share of a 10⁵ fit).
   const index = new Int32Array(SUBSAMPLE_LIMIT);
   for (let k = 0; k < SUBSAMPLE_LIMIT; k++) index[k] = Math.round((k * (n - 1)) / (SUBSAMPLE_LIMIT - 1));
+  // Built by push, so the subsample keeps the input's element kind (packed doubles for a typical track): a
+  // preallocated `new Array(n)` is holey, and the fit loops then see two array kinds and are compiled slower.
   const pick = (values: readonly number[]) => {
-    const out = new Array<number>(SUBSAMPLE_LIMIT);
-    for (let k = 0; k < SUBSAMPLE_LIMIT; k++) out[k] = values[index[k] as number] as number;
+    const out: number[] = [];
+    for (let k = 0; k < SUBSAMPLE_LIMIT; k++) out.push(values[index[k] as number] as number);
     return out;
   };
   return { t: pick(samples.t), f: pick(samples.f), sigma: samples.sigma === undefined ? undefined : pick(samples.sigma) };

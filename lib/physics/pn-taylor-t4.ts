@@ -87,7 +87,10 @@ export interface PnTable {
 /** Tabulates z(ln u); null when B(x) ≤ 0 somewhere below the ISCO (the series has broken down). */
 export function buildPnTable(binary: PnBinary): PnTable | null {
   const c = bracketCoefficients(binary);
-  const k = (64 / 5) * binary.eta;
+  // read before the RK4 loop: a property read after it made the loop's optimised code (compiled mid-loop, for
+  // one object shape) bail out at every call whose binary came from another constructor (spread vs literal)
+  const eta = binary.eta;
+  const k = (64 / 5) * eta;
   const count = (LN_U_MAX - LN_U_MIN) * STEPS_PER_UNIT + 1;
   const h = 1 / STEPS_PER_UNIT;
   // dy/d ln u = −(64η/5) u x⁴ B(x), with x = e^y; u comes from the node's u times e^(h/2) or e^h (no exp of ln u).
@@ -129,7 +132,7 @@ export function buildPnTable(binary: PnBinary): PnTable | null {
     m0 = m1;
   }
   if (!Number.isFinite(k1)) return null;
-  return { eta: binary.eta, cubic, intervals: count - 1, h, iscoSlope };
+  return { eta, cubic, intervals: count - 1, h, iscoSlope };
 }
 
 /**
