@@ -27,6 +27,20 @@ export default async function authE2E(ctx: E2EContext): Promise<void> {
       await context.clearCookies();
     }
 
+    // The board and the candidate list show derived numbers for many candidates: each says, in view, that they are
+    // rapid triage estimates and that official parameter estimates and observatory safety rules take precedence.
+    const reader = await context.newPage();
+    await ctx.signIn(reader, "ada@chirpdesk.test", "demo-shifter");
+    for (const path of ["/triage", "/candidates"]) {
+      await reader.goto(`${ctx.baseUrl}${path}`);
+      const note = reader.locator('main [role="note"]').filter({ hasText: "Rapid estimates" }).first();
+      await note.waitFor({ state: "visible", timeout: 15_000 });
+      const text = await note.innerText();
+      check(/parameter estimates/.test(text) && /safety rules/.test(text), `${path}: caution reads "${text}"`);
+    }
+    await reader.close();
+    await context.clearCookies();
+
     // Signing out ends the session: the next protected page sends us back to sign-in.
     const leaving = await context.newPage();
     await ctx.signIn(leaving, "cleo@chirpdesk.test", "demo-coordinator");

@@ -1,4 +1,5 @@
 import { CandidateList } from "@/components/candidate/candidate-list";
+import { Caution } from "@/components/candidate/caution";
 import { PageHeader } from "@/components/ui/page-header";
 import { requirePageUser } from "@/lib/auth/session";
 import { listCandidates } from "@/lib/data/candidates";
@@ -16,6 +17,7 @@ export default async function CandidatesPage({ searchParams }: { searchParams: P
   return (
     <>
       <PageHeader title="Candidates" description="Every candidate the feed sent, newest first. Sorting, filters and search run on the server and are kept in the address, so a view can be bookmarked." />
+      <Caution compact />
       <CandidateList initialPage={page} initialQuery={query} timeZone={user.timeZone} />
     </>
   );

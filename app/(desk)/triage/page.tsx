@@ -1,4 +1,5 @@
 import { TriageBoard } from "@/components/board/triage-board";
+import { Caution } from "@/components/candidate/caution";
 import { PageHeader } from "@/components/ui/page-header";
 import { can, hasRole } from "@/lib/auth/roles";
 import { requirePageUser } from "@/lib/auth/session";
@@ -23,6 +24,7 @@ export default async function TriagePage() {
             : "Drag a card (or use its ⋯ button) to change its state; drop it on a person to assign it. Decided cards leave the board after 14 days; the candidate list keeps everything."
         }
       />
+      <Caution compact />
       <TriageBoard initialBoard={board} initialRoster={roster} sites={sites} viewer={{ id: user.id, role: user.role, timeZone: user.timeZone }} />
     </>
   );
