@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { ObservationUpload } from "@/components/observations/observation-upload";
 import { Avatar } from "@/components/ui/avatar";
 import { Badge } from "@/components/ui/badge";
 import type { CandidateTaskSummary } from "@/lib/data/candidate-detail";
@@ -6,7 +7,18 @@ import { formatInZone, isoUtc } from "@/lib/format/time";
 import { priorityLabels, taskKindLabels, taskStateLabels } from "@/lib/triage/task-states";
 
 /** The candidate's follow-up tasks and where each stands. */
-export function TasksPanel({ candidateId, tasks, timeZone }: { candidateId: string; tasks: CandidateTaskSummary[]; timeZone: string }) {
+export function TasksPanel({
+  candidateId,
+  tasks,
+  timeZone,
+  canRecord = false,
+}: {
+  candidateId: string;
+  tasks: CandidateTaskSummary[];
+  timeZone: string;
+  /** the viewer's role may log exposures (the server still checks each row's instrument and the task holder) */
+  canRecord?: boolean;
+}) {
   if (tasks.length === 0) return <p className="text-sm text-muted">No follow-up tasks. They are planned when the candidate goes to Pursue.</p>;
   return (
     <ul className="space-y-2 text-sm">
@@ -30,6 +42,7 @@ export function TasksPanel({ candidateId, tasks, timeZone }: { candidateId: stri
               <Avatar name={t.claimedBy.name} initials={t.claimedBy.initials} className="h-5 w-5" /> {t.claimedBy.name}
             </p>
           ) : null}
+          {canRecord && t.state !== "cancelled" ? <ObservationUpload taskId={t.id} candidateId={candidateId} /> : null}
         </li>
       ))}
       <li>

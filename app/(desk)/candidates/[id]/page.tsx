@@ -164,7 +164,7 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
           </Panel>
           <Panel>
             <PanelTitle>Follow-up tasks</PanelTitle>
-            <TasksPanel candidateId={detail.id} tasks={detail.tasks} timeZone={tz} />
+            <TasksPanel candidateId={detail.id} tasks={detail.tasks} timeZone={tz} canRecord={hasRole(user, can.recordObservations)} />
           </Panel>
           <Panel>
             <PanelTitle>Notes</PanelTitle>
