@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
 import { networkSiteCodes } from "./network";
+import { observationPaths, observationSchemas } from "./openapi-observations";
 import { planPaths, planSchemas } from "./openapi-plans";
 import { candidateDetailSchema, derivedSchema, errorSchema, ingestAnswerSchema } from "./openapi-schemas";
 import { signatureToleranceSeconds } from "./signature";
@@ -17,7 +18,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
       title: "Chirpdesk API",
       version: "1",
       description:
-        "The candidate feed, candidate reads and pointing plans. Detector site codes of the configured (fictional) network: " +
+        "The candidate feed, candidate reads, pointing plans, observation logs, coverage and counterparts. Detector site codes of the configured (fictional) network: " +
         `${networkSiteCodes().join(", ")}; any 1–4 character uppercase code is accepted.`,
     },
     ...(serverUrl ? { servers: [{ url: serverUrl }] } : {}),
@@ -106,6 +107,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
         },
       },
       ...planPaths(),
+      ...observationPaths(),
       "/api/v1/openapi.json": {
         get: {
           summary: "This document",
@@ -126,6 +128,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
         CandidateDetail: candidateDetailSchema,
         Error: errorSchema,
         ...planSchemas(),
+        ...observationSchemas(),
       },
     },
   };
