@@ -104,6 +104,8 @@ export function CandidateList({ initialPage, initialQuery, timeZone }: { initial
   const sorting: SortingState = [{ id: query.sort, desc: query.dir === "desc" }];
   const page = data ?? initialPage;
   const pageCount = Math.max(1, Math.ceil(page.total / query.pageSize));
+  // The server clamps a page past the last one (the list shrank, an old bookmark): show and step from its answer.
+  const pageNumber = Math.min(page.page, pageCount);
   const table = useReactTable({
     data: page.rows,
     columns,
@@ -112,7 +114,7 @@ export function CandidateList({ initialPage, initialQuery, timeZone }: { initial
     manualPagination: true,
     manualFiltering: true,
     pageCount,
-    state: { sorting, pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
+    state: { sorting, pagination: { pageIndex: pageNumber - 1, pageSize: query.pageSize } },
     onSortingChange: (updater) => {
       const next = typeof updater === "function" ? updater(sorting) : updater;
       const first = next[0];
@@ -178,7 +180,7 @@ export function CandidateList({ initialPage, initialQuery, timeZone }: { initial
       </div>
       <nav aria-label="Pages" className="flex flex-wrap items-center justify-between gap-3 text-sm">
         <p className="text-muted">
-          {page.total} candidate{page.total === 1 ? "" : "s"} · page {query.page} of {pageCount}
+          {page.total} candidate{page.total === 1 ? "" : "s"} · page {pageNumber} of {pageCount}
         </p>
         <div className="flex items-center gap-2">
           <label className="flex items-center gap-2 text-xs text-muted">
@@ -189,10 +191,10 @@ export function CandidateList({ initialPage, initialQuery, timeZone }: { initial
               ))}
             </Select>
           </label>
-          <Button size="sm" onClick={() => update({ page: query.page - 1 })} disabled={query.page <= 1} aria-label="Previous page">
+          <Button size="sm" onClick={() => update({ page: pageNumber - 1 })} disabled={pageNumber <= 1} aria-label="Previous page">
             <ChevronLeft aria-hidden className="h-4 w-4" />
           </Button>
-          <Button size="sm" onClick={() => update({ page: query.page + 1 })} disabled={query.page >= pageCount} aria-label="Next page">
+          <Button size="sm" onClick={() => update({ page: pageNumber + 1 })} disabled={pageNumber >= pageCount} aria-label="Next page">
             <ChevronRight aria-hidden className="h-4 w-4" />
           </Button>
         </div>

@@ -212,7 +212,7 @@ export async function listCandidates(query: CandidateListQuery): Promise<Candida
   const condition = and(...where);
   const column = sortColumns[query.sort];
   const direction = query.dir === "asc" ? sql`asc` : sql`desc`;
-  const [rows, [totalRow]] = await Promise.all([
+  const pageRows = (page: number) =>
     db
       .select({ c: candidates, owner: { id: users.id, name: users.name, initials: users.initials } })
       .from(candidates)
@@ -220,9 +220,13 @@ export async function listCandidates(query: CandidateListQuery): Promise<Candida
       .where(condition)
       .orderBy(sql`${column} is null`, sql`${column} ${direction}`, desc(candidates.receivedAt))
       .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize),
-    db.select({ n: count() }).from(candidates).where(condition),
-  ]);
+      .offset((page - 1) * query.pageSize);
+  const [firstRows, [totalRow]] = await Promise.all([pageRows(query.page), db.select({ n: count() }).from(candidates).where(condition)]);
+  const total = totalRow?.n ?? 0;
+  // A page past the last one (an old bookmark, ?page=999) is the last page, said as such in `page`.
+  const lastPage = Math.max(1, Math.ceil(total / query.pageSize));
+  const page = Math.min(query.page, lastPage);
+  const rows = page === query.page ? firstRows : await pageRows(page);
   return {
     rows: rows.map(({ c, owner }) => ({
       id: c.id,
@@ -240,8 +244,8 @@ export async function listCandidates(query: CandidateListQuery): Promise<Candida
       detectors: c.detectors,
       owner: owner?.id ? owner : null,
     })),
-    total: totalRow?.n ?? 0,
-    page: query.page,
+    total,
+    page,
     pageSize: query.pageSize,
   };
 }

@@ -33,6 +33,57 @@ export const candidateListQuerySchema = z.object({
 });
 export type CandidateListQuery = z.infer<typeof candidateListQuerySchema>;
 
+/** A query parameter of the candidate page that was left out, and why, in words for the person who typed it. */
+export interface IgnoredListParam {
+  param: string;
+  message: string;
+}
+
+const listParamMessages: Record<Exclude<keyof CandidateListQuery, "state" | "stage" | "class">, string> = {
+  sort: `sort must be one of ${candidateSortKeys.join(", ")}`,
+  dir: "dir must be asc or desc",
+  page: "page must be a whole number from 1",
+  pageSize: "pageSize must be a whole number from 5 to 200",
+  q: "the search is at most 100 characters",
+};
+
+/**
+ * The candidate page's address, read one parameter at a time: a parameter that does not parse falls back to its
+ * default and is named in `ignored`, the others keep their values (a bad page number never drops the search).
+ * Filters keep their known values and name the unknown ones. Unknown parameters are no concern of the list and
+ * pass silently. (The API, GET /api/v1/candidates, stays strict: a bad parameter is a 422 naming it.)
+ */
+export function parseCandidateListParams(raw: Record<string, string | undefined>): { query: CandidateListQuery; ignored: IgnoredListParam[] } {
+  const query: CandidateListQuery = candidateListQuerySchema.parse({});
+  const ignored: IgnoredListParam[] = [];
+  const shape = candidateListQuerySchema.shape;
+  const scalar = <K extends keyof typeof listParamMessages>(key: K) => {
+    const value = raw[key];
+    if (value === undefined) return;
+    const parsed = shape[key].safeParse(value);
+    if (parsed.success) query[key] = parsed.data as CandidateListQuery[K];
+    else ignored.push({ param: key, message: listParamMessages[key] });
+  };
+  scalar("sort");
+  scalar("dir");
+  scalar("page");
+  scalar("pageSize");
+  scalar("q");
+  const filter = <K extends "state" | "stage" | "class">(key: K, allowed: readonly string[]) => {
+    const value = raw[key];
+    if (!value) return;
+    const values = value.split(",").filter(Boolean);
+    const known = values.filter((v) => allowed.includes(v));
+    const unknown = values.filter((v) => !allowed.includes(v));
+    query[key] = known as CandidateListQuery[K];
+    if (unknown.length > 0) ignored.push({ param: key, message: `${key} has no value ${unknown.map((v) => `“${v}”`).join(", ")} (known: ${allowed.join(", ")})` });
+  };
+  filter("state", triageStates);
+  filter("stage", stages);
+  filter("class", sourceClasses);
+  return { query, ignored };
+}
+
 /** POST /api/v1/candidates/:id/notes */
 export const noteBodySchema = z.strictObject({
   body: z.string().trim().min(1, "write something first").max(5000),
