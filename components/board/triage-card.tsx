@@ -74,7 +74,7 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
           <dt className="shrink-0 text-faint" title="Chirp mass, detector frame">
             𝓜<sub>det</sub>
           </dt>
-          {/* The unit may wrap on its own line in a narrow column; the number never breaks. */}
+          {/* The value and its unit are one unbreakable piece; only the fit's tag may go to the next line. */}
           <dd className="flex min-w-0 flex-wrap items-baseline gap-x-1 tabular-nums leading-tight">
             {card.chirpMassDetectorFrame === null ? (
               <span className={status.kind === "not-fitted" ? "" : "text-warn"} data-testid="card-chirp-status" title={chirpStatusSentence(status) ?? undefined}>
@@ -82,8 +82,10 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
               </span>
             ) : (
               <>
-                <span className="whitespace-nowrap">{formatWithUncertainty(card.chirpMassDetectorFrame, card.chirpMassDetectorFrameSd)}</span>
-                <span className="text-faint">{SOLAR_MASS_UNIT}</span>
+                <span className="whitespace-nowrap">
+                  {formatWithUncertainty(card.chirpMassDetectorFrame, card.chirpMassDetectorFrameSd)}
+                  <span className="text-faint">{`\u00a0${SOLAR_MASS_UNIT}`}</span>
+                </span>
                 <span
                   className={status.kind === "fitted" && status.poorFit ? "text-warn" : "text-faint"}
                   data-testid="card-chirp-status"

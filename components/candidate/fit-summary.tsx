@@ -24,8 +24,8 @@ export function FitSummary({ derived }: { derived: Partial<Derived> }) {
         <p className="text-xs text-muted">
           Model: <strong className="font-medium text-fg">{modelLabels[fit.model] ?? fit.model}</strong>
           {fit.massRatio ? ` (η = ${fit.massRatio.eta.toFixed(3)} ± ${fit.massRatio.etaSd.toFixed(3)} from the trigger's masses)` : ""}. {fit.samplesUsed} samples,{" "}
-          {fit.frequencyMinHz.toFixed(0)}–{fit.frequencyMaxHz.toFixed(0)} Hz
-          {fit.residualRms !== null ? `, RMS residual ${trimmedPrecision(fit.residualRms, 3)} Hz` : ""}
+          {fit.frequencyMinHz.toFixed(0)}–{fit.frequencyMaxHz.toFixed(0)}&nbsp;Hz
+          {fit.residualRms !== null ? `, RMS residual ${trimmedPrecision(fit.residualRms, 3)}\u00a0Hz` : ""}
           {fit.reducedChiSquare !== null ? `, reduced χ² ${fit.reducedChiSquare.toFixed(2)}` : ""}.
           {fit.warnings.length ? ` Warnings: ${fit.warnings.join("; ")}` : ""}
         </p>

@@ -55,7 +55,7 @@ export function MergerPanel({ derived }: { derived: Partial<Derived> }) {
             <span className="font-mono tabular-nums">{formatPercent(rem.massFraction)}</span>
             <span className="text-muted"> of the neutron star&apos;s baryonic mass</span>
             <span className="block text-xs text-faint">
-              Foucart, Hinderer &amp; Nissanke 2018 fit at the mean masses ({trimmedPrecision(rem.blackHoleMassSourceFrame, 3)} + {trimmedPrecision(rem.neutronStarMassSourceFrame, 3)} {SOLAR_MASS_UNIT} source frame), assuming a neutron-star radius of {rem.nsRadiusKm} km and black-hole spin {rem.blackHoleSpin.toFixed(2)}{rem.spinsAssumed ? " (spins not given, zero assumed)" : ""}.
+              Foucart, Hinderer &amp; Nissanke 2018 fit at the mean masses ({trimmedPrecision(rem.blackHoleMassSourceFrame, 3)} + {trimmedPrecision(rem.neutronStarMassSourceFrame, 3)}&nbsp;{SOLAR_MASS_UNIT} source frame), assuming a neutron-star radius of {rem.nsRadiusKm}&nbsp;km and black-hole spin {rem.blackHoleSpin.toFixed(2)}{rem.spinsAssumed ? " (spins not given, zero assumed)" : ""}.
             </span>
           </>
         ) : (

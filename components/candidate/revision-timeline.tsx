@@ -14,7 +14,7 @@ function show(field: HeadlineChange["field"], value: unknown, timeZone: string):
     case "falseAlarmRatePerYear":
       return typeof value === "number" ? formatFalseAlarmRate(value) : String(value);
     case "chirpMassDetectorFrame":
-      return typeof value === "number" ? `${trimmedPrecision(value, 4)} ${SOLAR_MASS_UNIT}` : String(value);
+      return typeof value === "number" ? `${trimmedPrecision(value, 4)}\u00a0${SOLAR_MASS_UNIT}` : String(value);
     case "networkSnr":
       return typeof value === "number" ? value.toFixed(1) : String(value);
     case "dominantClass":

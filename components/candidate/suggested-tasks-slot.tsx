@@ -37,7 +37,7 @@ export function SuggestedTasksSlot({ candidateId, onAccept }: { candidateId: str
   if (query.isError || !query.data) return null;
   const { skymapId, suggestions } = query.data;
   if (!skymapId) return <p className="text-xs text-faint">No sky map yet, so no suggestions: plan the tasks by hand.</p>;
-  if (suggestions.length === 0) return <p className="text-xs text-faint">No site can observe enough of the 90 % region during its coming night.</p>;
+  if (suggestions.length === 0) return <p className="text-xs text-faint">No site can observe enough of the 90&nbsp;% region during its coming night.</p>;
   const visible = suggestions.filter((s) => handled[s.siteId] !== "dropped");
   return (
     <section aria-labelledby="suggested-title" className="space-y-2 rounded-md border border-accent/40 bg-accent/5 p-3" data-testid="suggested-tasks">
@@ -52,7 +52,7 @@ export function SuggestedTasksSlot({ candidateId, onAccept }: { candidateId: str
               <div className="min-w-0">
                 <p>
                   <span className="font-mono">{s.siteCode}</span> {s.siteName} · <span className="font-medium">{taskKindLabels[s.kind]}</span> ·{" "}
-                  <span className="text-ok">{Math.round(s.observableProbability * 100)} % observable</span>
+                  <span className="text-ok">{Math.round(s.observableProbability * 100)}&nbsp;% observable</span>
                 </p>
                 <p className="text-xs text-muted">
                   {windowText(s)}

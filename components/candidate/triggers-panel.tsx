@@ -99,7 +99,7 @@ export function TriggersPanel({
               {mergeOptions.map((o) => (
                 <option key={o.id} value={o.id}>
                   {o.externalId} ({o.source}, {o.offsetS >= 0 ? "+" : "−"}
-                  {Math.abs(o.offsetS).toFixed(1)} s, {o.triggerCount} trigger{o.triggerCount === 1 ? "" : "s"})
+                  {Math.abs(o.offsetS).toFixed(1)}&nbsp;s, {o.triggerCount} trigger{o.triggerCount === 1 ? "" : "s"})
                 </option>
               ))}
             </Select>

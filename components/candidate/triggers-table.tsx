@@ -77,9 +77,9 @@ export function TriggersTable({ rows, timeZone, action }: { rows: TriggerRow[]; 
                   />
                 </td>
                 <td className="whitespace-nowrap py-1.5 pr-3 text-right tabular-nums">
-                  {row.chirpMassDetectorFrame === null ? "not fitted" : `${trimmedPrecision(row.chirpMassDetectorFrame, 4)} ${SOLAR_MASS_UNIT}`}
+                  {row.chirpMassDetectorFrame === null ? "not fitted" : `${trimmedPrecision(row.chirpMassDetectorFrame, 4)}\u00a0${SOLAR_MASS_UNIT}`}
                   <Diff
-                    text={d?.chirpMassDetectorFrameDelta != null ? `${signed(d.chirpMassDetectorFrameDelta, 3)} ${SOLAR_MASS_UNIT}` : null}
+                    text={d?.chirpMassDetectorFrameDelta != null ? `${signed(d.chirpMassDetectorFrameDelta, 3)}\u00a0${SOLAR_MASS_UNIT}` : null}
                     title="detector-frame chirp mass minus the preferred trigger's (rapid estimates)"
                   />
                   {d && (d.detectorsOnlyHere.length > 0 || d.detectorsMissingHere.length > 0) ? (

@@ -22,7 +22,7 @@ function When({ ms, tz }: { ms: number; tz: string }) {
 
 function Section({ title, total, shown, children }: { title: string; total: number; shown: number; children: React.ReactNode }) {
   return (
-    <section className="break-inside-avoid rounded-lg border border-line bg-surface p-4 print:border-0 print:p-0">
+    <section className="min-w-0 break-inside-avoid rounded-lg border border-line bg-surface p-4 print:border-0 print:p-0">
       <h2 className="mb-2 text-base font-semibold">
         {title} <span className="font-mono text-muted">({total})</span>
       </h2>
@@ -34,6 +34,7 @@ function Section({ title, total, shown, children }: { title: string; total: numb
 
 const th = "px-2 py-1 text-left text-xs font-medium uppercase tracking-wide text-muted";
 const td = "px-2 py-1 align-top";
+// Tables scroll inside their section on a phone instead of stretching the page; durations never break.
 const idLink = (id: string, text: string) => (
   <Link href={`/candidates/${id}`} className="font-mono text-accent hover:underline print:text-fg">
     {text}
@@ -44,12 +45,12 @@ const idLink = (id: string, text: string) => (
 export function HandoffView({ summary, timeZone }: { summary: HandoffSummary; timeZone: string }) {
   const { received, decisions, awaitingDecision, openTasks, missed } = summary;
   return (
-    <div className="grid items-start gap-4 lg:grid-cols-2 print:block print:space-y-4">
+    <div className="grid grid-cols-1 items-start gap-4 lg:grid-cols-2 print:block print:space-y-4">
       <Section title="Candidates received" total={received.total} shown={received.items.length}>
         <p className="mb-2 text-sm text-muted">
           {Object.entries(received.byClass).map(([k, n]) => `${n} ${cls(k === "pending" ? null : k)}`).join(" · ")}
         </p>
-        <table className="w-full text-sm">
+        <div className="relative overflow-x-auto"><table className="w-full text-sm">
           <thead><tr><th className={th}>Candidate</th><th className={th}>Received</th><th className={th}>Class</th><th className={th}>Now</th></tr></thead>
           <tbody>
             {received.items.map((c) => (
@@ -61,11 +62,11 @@ export function HandoffView({ summary, timeZone }: { summary: HandoffSummary; ti
               </tr>
             ))}
           </tbody>
-        </table>
+        </table></div>
       </Section>
       <Section title="Decisions taken" total={decisions.total} shown={decisions.items.length}>
         <p className="mb-2 text-sm text-muted">{Object.entries(decisions.byState).map(([k, n]) => `${n} ${state(k)}`).join(" · ")}</p>
-        <table className="w-full text-sm">
+        <div className="relative overflow-x-auto"><table className="w-full text-sm">
           <thead><tr><th className={th}>Candidate</th><th className={th}>Decision</th><th className={th}>When</th><th className={th}>By</th></tr></thead>
           <tbody>
             {decisions.items.map((d) => (
@@ -77,7 +78,7 @@ export function HandoffView({ summary, timeZone }: { summary: HandoffSummary; ti
               </tr>
             ))}
           </tbody>
-        </table>
+        </table></div>
       </Section>
       <Section title="Awaiting a decision" total={awaitingDecision.total} shown={awaitingDecision.items.length}>
         <ul className="space-y-1 text-sm">
@@ -87,7 +88,7 @@ export function HandoffView({ summary, timeZone }: { summary: HandoffSummary; ti
         </ul>
       </Section>
       <Section title="Open follow-up tasks (now)" total={openTasks.total} shown={openTasks.items.length}>
-        <table className="w-full text-sm">
+        <div className="relative overflow-x-auto"><table className="w-full text-sm">
           <thead><tr><th className={th}>Candidate</th><th className={th}>Task</th><th className={th}>Site</th><th className={th}>State</th></tr></thead>
           <tbody>
             {openTasks.items.map((t) => (
@@ -99,26 +100,26 @@ export function HandoffView({ summary, timeZone }: { summary: HandoffSummary; ti
               </tr>
             ))}
           </tbody>
-        </table>
+        </table></div>
       </Section>
-      <div className="lg:col-span-2">
+      <div className="min-w-0 lg:col-span-2">
         <Section title="Deadlines missed" total={missed.total} shown={missed.items.length}>
           <p className="mb-2 text-sm text-muted">
             {Object.entries(missed.byStep).filter(([, n]) => n > 0).map(([s, n]) => `${n} ${steps[s as keyof typeof steps].label.toLowerCase()}`).join(" · ")}
           </p>
-          <table className="w-full text-sm">
+          <div className="relative overflow-x-auto"><table className="w-full text-sm">
             <thead><tr><th className={th}>Candidate</th><th className={th}>Step</th><th className={th}>Took</th><th className={th}>Deadline</th></tr></thead>
             <tbody>
               {missed.items.map((m) => (
                 <tr key={`${m.candidateId}-${m.step}`} className="border-t border-line">
                   <td className={td}>{idLink(m.candidateId, m.externalId)}</td>
                   <td className={td}>{steps[m.step].label}</td>
-                  <td className={`${td} font-mono text-alarm`}>{formatDurationMs(m.durationMs)}{m.status === "open" ? " so far" : ""}</td>
-                  <td className={`${td} font-mono`}>{formatDurationMs(m.deadlineMs)}</td>
+                  <td className={`${td} whitespace-nowrap font-mono text-alarm`}>{formatDurationMs(m.durationMs)}{m.status === "open" ? " so far" : ""}</td>
+                  <td className={`${td} whitespace-nowrap font-mono`}>{formatDurationMs(m.deadlineMs)}</td>
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></div>
         </Section>
       </div>
     </div>

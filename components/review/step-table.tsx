@@ -75,7 +75,7 @@ export function StepTable({
                     >
                       <AlarmClock aria-hidden className="h-3.5 w-3.5" />
                       {f.overDeadline}
-                      <span className="text-xs text-muted">({Math.round((100 * f.overDeadline) / Math.max(1, measured))} %)</span>
+                      <span className="text-xs text-muted">({Math.round((100 * f.overDeadline) / Math.max(1, measured))}&nbsp;%)</span>
                     </button>
                   ) : (
                     <span className="font-mono text-ok">0</span>

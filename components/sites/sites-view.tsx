@@ -66,7 +66,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
         ),
       }),
       column.accessor("minAltitudeDeg", { header: "Lowest altitude", cell: (c) => `${c.getValue()}°` }),
-      column.accessor("fieldOfViewDeg2", { header: "Field", cell: (c) => `${c.getValue()} deg²` }),
+      column.accessor("fieldOfViewDeg2", { header: "Field", cell: (c) => `${c.getValue()}\u00a0deg²` }),
       column.accessor("timeZone", { header: "Time zone", cell: (c) => <span className="text-xs">{c.getValue()}</span> }),
       column.accessor("observers", {
         header: "Observers",

@@ -51,7 +51,7 @@ export function TonightPanel({ timeZone }: { timeZone: string }) {
                     <Link href={`/candidates/${c.id}`} className="font-mono text-accent hover:underline">
                       {c.externalId}
                     </Link>
-                    <span className="block text-xs text-faint">90 % region {Math.round(c.area90Deg2).toLocaleString("en-US")} deg²</span>
+                    <span className="block text-xs text-faint">90&nbsp;% region {Math.round(c.area90Deg2).toLocaleString("en-US")}&nbsp;deg²</span>
                   </td>
                   {sites.map((s) => {
                     const cell = c.cells[s.site.id];
@@ -74,12 +74,12 @@ export function TonightPanel({ timeZone }: { timeZone: string }) {
           {candidates.length === 0 ? (
             <div className="p-3">
               <EmptyState icon={Moon} title="No recent candidates with sky maps">
-                Candidates from the last three days appear here once a sky map is attached, with the share of each 90 % region every site can observe.
+                Candidates from the last three days appear here once a sky map is attached, with the share of each 90&nbsp;% region every site can observe.
               </EmptyState>
             </div>
           ) : (
             <p className="border-t border-line px-3 py-2 text-xs text-faint">
-              Share of each candidate&apos;s 90 % region that rises above the site&apos;s altitude limit during its coming astronomical night, and the best window.
+              Share of each candidate&apos;s 90&nbsp;% region that rises above the site&apos;s altitude limit during its coming astronomical night, and the best window.
             </p>
           )}
         </div>

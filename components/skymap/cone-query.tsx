@@ -39,7 +39,7 @@ export function ConeQuery({ skymapId, initial }: { skymapId: string; initial: { 
         Probability in cone
       </Button>
       <output className="min-w-24 text-sm" aria-live="polite">
-        {query.data ? <span className="font-mono">{(query.data.probability * 100).toFixed(query.data.probability < 0.1 ? 2 : 1)} %</span> : null}
+        {query.data ? <span className="font-mono">{(query.data.probability * 100).toFixed(query.data.probability < 0.1 ? 2 : 1)}&nbsp;%</span> : null}
         {query.error ? (
           <span className="text-alarm">{errorText(query.error)}</span>
         ) : null}

@@ -14,15 +14,15 @@ export function formatDec(decDeg: number): string {
 }
 
 export function formatArea(deg2: number): string {
-  if (deg2 >= 100) return `${Math.round(deg2).toLocaleString("en-US")} deg²`;
-  if (deg2 >= 10) return `${deg2.toFixed(0)} deg²`;
-  return `${deg2.toPrecision(2)} deg²`;
+  if (deg2 >= 100) return `${Math.round(deg2).toLocaleString("en-US")}\u00a0deg²`;
+  if (deg2 >= 10) return `${deg2.toFixed(0)}\u00a0deg²`;
+  return `${deg2.toPrecision(2)}\u00a0deg²`;
 }
 
 export function formatShare(fraction: number): string {
   const pct = fraction * 100;
-  if (pct > 0 && pct < 1) return "< 1 %";
-  return `${Math.round(pct)} %`;
+  if (pct > 0 && pct < 1) return "<\u00a01\u00a0%";
+  return `${Math.round(pct)}\u00a0%`;
 }
 
 export function formatBytes(bytes: number): string {
@@ -34,5 +34,5 @@ export function formatBytes(bytes: number): string {
 /** A distance with its spread; whole Mpc above 100 Mpc, three significant figures below. */
 export function formatDistance(meanMpc: number, stdMpc: number): string {
   const fmt = (v: number) => (Math.abs(v) >= 100 ? Math.round(v).toLocaleString("en-US") : v.toPrecision(3));
-  return `${fmt(meanMpc)} ± ${fmt(stdMpc)} Mpc`;
+  return `${fmt(meanMpc)}\u00a0±\u00a0${fmt(stdMpc)}\u00a0Mpc`;
 }

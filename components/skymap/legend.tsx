@@ -34,11 +34,11 @@ export function SkymapLegend({ sites, onToggle, observedCount = 0 }: { sites: Re
         </div>
         <div className="flex items-center gap-2">
           <ContourSwatch palette={palette} thickPx={2} />
-          <dd className="text-muted">Thick line: smallest region holding 50 % of the probability</dd>
+          <dd className="text-muted">Thick line: smallest region holding 50&nbsp;% of the probability</dd>
         </div>
         <div className="flex items-center gap-2">
           <ContourSwatch palette={palette} thickPx={1} />
-          <dd className="text-muted">Thin line: smallest region holding 90 %</dd>
+          <dd className="text-muted">Thin line: smallest region holding 90&nbsp;%</dd>
         </div>
         <div className="flex items-center gap-2">
           <dt className="flex w-14 shrink-0 items-center gap-1.5">

@@ -6,7 +6,7 @@ export function ProgressBar({ fraction, label }: { fraction: number; label: stri
       <div className="flex justify-between text-xs text-muted">
         <span>{label}</span>
         <span className="font-mono" data-testid="upload-percent">
-          {pct} %
+          {pct}&nbsp;%
         </span>
       </div>
       <div role="progressbar" aria-label={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} className="h-2 overflow-hidden rounded bg-sunken">

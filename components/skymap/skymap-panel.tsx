@@ -136,8 +136,8 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
   return (
     <div className="space-y-4">
       <dl className="grid grid-cols-2 gap-3 text-sm sm:grid-cols-4" data-testid="skymap-numbers">
-        <Figure label="50 % area" value={formatArea(skymap.area50Deg2)} testId="area50" />
-        <Figure label="90 % area" value={formatArea(skymap.area90Deg2)} testId="area90" />
+        <Figure label={"50\u00a0% area"} value={formatArea(skymap.area50Deg2)} testId="area50" />
+        <Figure label={"90\u00a0% area"} value={formatArea(skymap.area90Deg2)} testId="area90" />
         <Figure label="Most probable RA" value={formatRa(skymap.peak.raDeg)} hint={`${skymap.peak.raDeg.toFixed(3)}°`} />
         <Figure label="Most probable Dec" value={formatDec(skymap.peak.decDeg)} hint={`${skymap.peak.decDeg.toFixed(3)}°`} />
       </dl>
@@ -197,8 +197,8 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
         {visibility.data ? <VisibilityTable visibility={visibility.data} colours={colours} timeZone={timeZone} /> : null}
         {visibility.isLoading ? <p className="text-sm text-muted">Working out each site&apos;s night…</p> : null}
         <p className="text-xs text-faint">
-          Share of the 90 % region&apos;s probability that reaches each site&apos;s altitude limit at some time between the end and start of
-          astronomical twilight (Sun 18° below the horizon), in 10-minute steps, without refraction. The best window holds at least 90 % of the
+          Share of the 90&nbsp;% region&apos;s probability that reaches each site&apos;s altitude limit at some time between the end and start of
+          astronomical twilight (Sun 18° below the horizon), in 10-minute steps, without refraction. The best window holds at least 90&nbsp;% of the
           largest share seen at one instant.
         </p>
       </section>

@@ -41,7 +41,7 @@ export function VisibilityTable({
                     <span className="font-mono">{row.site.code}</span>
                     <span className="text-muted">{row.site.name}</span>
                   </span>
-                  <span className="block text-xs text-faint">above {row.site.minAltitudeDeg}° · {row.site.fieldOfViewDeg2} deg² field</span>
+                  <span className="block text-xs text-faint">above {row.site.minAltitudeDeg}° · {row.site.fieldOfViewDeg2}&nbsp;deg² field</span>
                 </td>
                 <td className="py-1.5 pr-3 text-xs">
                   {row.nightStart && row.nightEnd ? (

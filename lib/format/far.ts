@@ -1,4 +1,4 @@
-import { groupedNumber, roundSignificant } from "./numbers";
+import { groupedNumber, NBSP, roundSignificant } from "./numbers";
 
 /** Days in a Julian year, the year false-alarm rates are quoted in (common practice). */
 export const DAYS_PER_YEAR = 365.25;
@@ -16,15 +16,15 @@ export function formatFalseAlarmRate(perYear: number): string {
   if (perYear === 0) return "none expected";
   if (perYear < 1) {
     const years = roundSignificant(1 / perYear, 2);
-    return years === 1 ? "1 per year" : `1 per ${bigCount(years)} years`;
+    return years === 1 ? `1${NBSP}per year` : `1 per ${bigCount(years)}${NBSP}years`;
   }
-  if (perYear < PER_YEAR_LIMIT) return `${groupedNumber(roundSignificant(perYear, 2))} per year`;
+  if (perYear < PER_YEAR_LIMIT) return `${groupedNumber(roundSignificant(perYear, 2))}${NBSP}per year`;
   const perDay = perYear / DAYS_PER_YEAR;
   if (perDay <= 1) {
     const days = roundSignificant(1 / perDay, 2);
-    return days === 1 ? "1 per day" : `1 per ${groupedNumber(days)} days`;
+    return days === 1 ? `1${NBSP}per day` : `1 per ${groupedNumber(days)}${NBSP}days`;
   }
-  return `${groupedNumber(roundSignificant(perDay, 2))} per day`;
+  return `${groupedNumber(roundSignificant(perDay, 2))}${NBSP}per day`;
 }
 
 /** The exact figure for a tooltip: "2.00e-2 per year". */
@@ -33,7 +33,7 @@ export function formatFalseAlarmRateExact(perYear: number): string {
 }
 
 function bigCount(n: number): string {
-  if (n >= 1e9) return `${groupedNumber(roundSignificant(n / 1e9, 2))} billion`;
-  if (n >= 1e6) return `${groupedNumber(roundSignificant(n / 1e6, 2))} million`;
+  if (n >= 1e9) return `${groupedNumber(roundSignificant(n / 1e9, 2))}${NBSP}billion`;
+  if (n >= 1e6) return `${groupedNumber(roundSignificant(n / 1e6, 2))}${NBSP}million`;
   return groupedNumber(n);
 }

@@ -1,3 +1,5 @@
+import { NBSP } from "./numbers";
+
 /**
  * Times for people: stored UTC instants shown in the viewer's zone with the zone named, ISO UTC for hovers.
  * Built on Intl (no date library) so the board's first-load script stays small.
@@ -39,17 +41,20 @@ function zonedParts(instant: Date | number | string, timeZone: string, withSecon
   return { date: `${parts.year}-${parts.month}-${parts.day}`, time, zone: zoneLabel(zone, parts.timeZoneName ?? "") };
 }
 
-/** "2025-03-01 15:03:12 GMT+1" in the viewer's zone. */
+/** "2025-03-01 15:03:12 GMT+1" in the viewer's zone; the clock time and its zone joined by a no-break space. */
 export function formatInZone(instant: Date | number | string, timeZone: string): string {
   const p = zonedParts(instant, timeZone, true);
-  return p ? `${p.date} ${p.time} ${p.zone}` : "—";
+  return p ? `${p.date} ${p.time}${NBSP}${p.zone}` : "—";
 }
 
-/** "15:03 GMT+1": the short clock time in the viewer's zone (without the zone name where a tooltip carries it). */
+/**
+ * "15:03 GMT+1": the short clock time in the viewer's zone (without the zone name where a tooltip carries it); the
+ * time and its zone are joined by a no-break space, so "GMT-3" never goes to a line of its own.
+ */
 export function formatClock(instant: Date | number | string, timeZone: string, options: { zone?: boolean } = {}): string {
   const p = zonedParts(instant, timeZone, false);
   if (!p) return "—";
-  return options.zone === false ? p.time : `${p.time} ${p.zone}`;
+  return options.zone === false ? p.time : `${p.time}${NBSP}${p.zone}`;
 }
 
 /**
@@ -62,10 +67,11 @@ export function formatWindow(start: Date | number | string | null, end: Date | n
   const from = start === null ? null : zonedParts(start, timeZone, false);
   const to = end === null ? null : zonedParts(end, timeZone, false);
   const dayOf = (p: ZonedParts) => (p.date.startsWith(`${thisYear}-`) ? p.date.slice(5) : p.date);
-  const fromText = from ? `${dayOf(from)} ${from.time}` : "now";
-  if (!to) return `${fromText}${from ? ` ${from.zone}` : ""} → open end`;
-  const toText = from && from.date === to.date ? to.time : `${dayOf(to)} ${to.time}`;
-  return `${fromText} → ${toText} ${to.zone}`;
+  // Each end is one unbreakable piece ("11-30 22:00", "05:30 GMT-3"); lines may break only around the arrow.
+  const fromText = from ? `${dayOf(from)}${NBSP}${from.time}` : "now";
+  if (!to) return `${fromText}${from ? `${NBSP}${from.zone}` : ""} → open end`;
+  const toText = from && from.date === to.date ? to.time : `${dayOf(to)}${NBSP}${to.time}`;
+  return `${fromText} → ${toText}${NBSP}${to.zone}`;
 }
 
 /** The calendar year of `instant` in `timeZone` (for `formatWindow`'s "this year"). */

@@ -1,10 +1,13 @@
+import { NBSP } from "./numbers";
+
 /**
  * A value with its 1σ uncertainty: the uncertainty to two significant figures and the value to the same decimal
  * place (common practice), e.g. (1.18763, 0.00412) → "1.1876 ± 0.0041". With no usable uncertainty the value
  * keeps four significant figures.
  */
 export function formatWithUncertainty(value: number, sd: number | null | undefined, unit?: string): string {
-  const suffix = unit ? ` ${unit}` : "";
+  // No-break spaces throughout: "1.18 ± 0.04 M☉" stays on one line.
+  const suffix = unit ? `${NBSP}${unit}` : "";
   if (!Number.isFinite(value)) return "—";
   if (sd === null || sd === undefined || !Number.isFinite(sd) || sd <= 0) {
     return `${trimmedPrecision(value, 4)}${suffix}`;
@@ -14,7 +17,7 @@ export function formatWithUncertainty(value: number, sd: number | null | undefin
   // Large uncertainties round to tens, hundreds…: keep the digits, show no decimals.
   const step = 10 ** (exponent - 1);
   const roundTo = (x: number) => (decimals > 0 ? x.toFixed(decimals) : String(Math.round(x / step) * step));
-  return `${roundTo(value)} ± ${roundTo(sd)}${suffix}`;
+  return `${roundTo(value)}${NBSP}±${NBSP}${roundTo(sd)}${suffix}`;
 }
 
 /** A value alone to `digits` significant figures, without exponent notation for everyday magnitudes. */

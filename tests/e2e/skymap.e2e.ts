@@ -64,7 +64,8 @@ export default async function skymapE2E(ctx: E2EContext): Promise<void> {
 
     // The numbers (healpy reference 1359.7 deg²) and both views, drawn.
     const area90 = await page.locator('[data-testid="area90"]').innerText({ timeout: 30_000 });
-    check(area90 === "1,360 deg²", `90 % area shown as "${area90}"`);
+    // one unbreakable piece: a no-break space between the number and its unit
+    check(area90 === "1,360\u00a0deg²", `90 % area shown as "${area90}"`);
     await page.waitForSelector('[data-testid="skymap-views"] canvas', { timeout: 30_000 });
     await page.waitForFunction(() => document.querySelectorAll('[data-testid="skymap-views"] canvas').length === 2, undefined, { timeout: 30_000 });
     let painted = 0;

@@ -24,12 +24,12 @@ const base = {
 
 describe("what the acknowledge page says afterwards", () => {
   it("tells the person who pressed that escalation stopped, in one sentence order", () => {
-    expect(acknowledgedText(base)).toBe("Acknowledged by Ada Quill at 2026-12-02 03:04:05 UTC. Escalation stopped.");
+    expect(acknowledgedText(base)).toBe("Acknowledged by Ada Quill at 2026-12-02 03:04:05\u00a0UTC. Escalation stopped.");
   });
 
   it("tells anyone else who was first, and where the candidate went, by its column name", () => {
     expect(acknowledgedText({ ...base, state: "already", userName: "Emil Varga", candidate: { ...candidate, triageState: "reviewing" } })).toBe(
-      "Already acknowledged by Ada Quill at 2026-12-02 03:04:05 UTC. It is now in “In review”.",
+      "Already acknowledged by Ada Quill at 2026-12-02 03:04:05\u00a0UTC. It is now in “In review”.",
     );
     expect(acknowledgedText({ ...base, state: "already", acknowledgedBy: null, acknowledgedAt: null })).toBe("Already acknowledged.");
   });

@@ -46,7 +46,7 @@ export function EscalationPolicyPanel({ policy: initial, canEdit }: { policy: Es
               {i > 0 ? <ArrowRight aria-hidden className="h-4 w-4 text-faint" /> : null}
               <span className="rounded-md border border-line bg-raised px-2 py-1">
                 <strong>{targetLabel[step.target]}</strong>{" "}
-                <span className="text-muted">{elapsed === 0 ? "at once" : `after ${elapsed} min unacknowledged`}</span>
+                <span className="text-muted">{elapsed === 0 ? "at once" : `after ${elapsed}\u00a0min unacknowledged`}</span>
               </span>
             </li>
           );
