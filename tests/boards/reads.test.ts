@@ -82,9 +82,10 @@ describe("the candidate list", () => {
     expect((await list(`q=${ids["TB-ALPHA"]}`)).page.rows.map((r) => r.externalId)).toEqual(["TB-ALPHA"]);
     const p2 = await list("pageSize=5&page=1&sort=externalId&dir=asc");
     expect(p2.page).toMatchObject({ total: 3, page: 1, pageSize: 5 });
+    // past the last page: the last page, numbered as such
     const beyond = await list("pageSize=5&page=2");
-    expect(beyond.page.rows).toEqual([]);
-    expect(beyond.page.total).toBe(3);
+    expect(beyond.page.rows).toHaveLength(3);
+    expect(beyond.page).toMatchObject({ total: 3, page: 1 });
   });
 
   it("refuses unknown sort keys and filter values with 422", async () => {
