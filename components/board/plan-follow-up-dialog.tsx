@@ -12,6 +12,7 @@ import { taskKinds } from "@/db/schema/task-values";
 import { priorityLabels, taskKindLabels } from "@/lib/triage/task-states";
 import { anySite, type createTasksBodySchema, createTasksBodySchemaAt, taskWindowMaxAheadDays, type CreateTasksBody, type TaskDraft, type TaskDraftInput } from "@/lib/validations/tasks";
 import type { z } from "zod";
+import { dateTimeInputIso } from "@/components/ui/iso-inputs";
 
 export interface SiteOption {
   id: string;
@@ -90,10 +91,10 @@ export default function PlanFollowUpDialog({
                 </Select>
               </Field>
               <Field label="Window opens (your time)" htmlFor={`task-${i}-start`} error={errors?.[i]?.windowStart?.message}>
-                <Input id={`task-${i}-start`} type="datetime-local" {...register(`tasks.${i}.windowStart`)} />
+                <Input id={`task-${i}-start`} {...dateTimeInputIso} {...register(`tasks.${i}.windowStart`)} />
               </Field>
               <Field label="Window closes (your time)" htmlFor={`task-${i}-end`} error={errors?.[i]?.windowEnd?.message}>
-                <Input id={`task-${i}-end`} type="datetime-local" {...register(`tasks.${i}.windowEnd`)} />
+                <Input id={`task-${i}-end`} {...dateTimeInputIso} {...register(`tasks.${i}.windowEnd`)} />
               </Field>
               <Field label="Priority" htmlFor={`task-${i}-priority`}>
                 <Select id={`task-${i}-priority`} {...register(`tasks.${i}.priority`)}>

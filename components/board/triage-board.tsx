@@ -197,6 +197,14 @@ export function TriageBoard({
   });
 
   const openActions = useCallback((id: string) => setActionsFor(id), []);
+  // One tap on the card: New → Acknowledged, focus staying on the card in its new column.
+  const acknowledge = useCallback(
+    (id: string) => {
+      const card = byId.get(id);
+      if (card) requestMove(card, "acknowledged", "card", true);
+    },
+    [byId, requestMove],
+  );
   const activeCard = activeId ? byId.get(activeId) : undefined;
   const actionsCard = actionsFor ? (byId.get(actionsFor) ?? null) : null;
 
@@ -253,6 +261,7 @@ export function TriageBoard({
                     deadlines={board.deadlines}
                     timeZone={viewer.timeZone}
                     onActions={openActions}
+                    onAcknowledge={canTriage ? acknowledge : undefined}
                   />
                 )}
               />

@@ -1,7 +1,7 @@
 "use client";
 
 import { useDraggable } from "@dnd-kit/core";
-import { GripVertical, MoreHorizontal } from "lucide-react";
+import { Check, GripVertical, MoreHorizontal } from "lucide-react";
 import Link from "next/link";
 import { memo } from "react";
 import { CAUTION_TEXT } from "@/components/candidate/caution";
@@ -25,10 +25,12 @@ interface CardProps {
   deadlines: BoardData["deadlines"];
   timeZone: string;
   onActions?: (id: string) => void;
+  /** one tap: New → Acknowledged (shown to those who triage, on cards waiting in New) */
+  onAcknowledge?: (id: string) => void;
 }
 
 /** What a card shows; memoised so a drag (which re-renders every draggable) does not redraw 500 card bodies. */
-export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, timeZone, onActions }: CardProps) {
+export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, timeZone, onActions, onAcknowledge }: CardProps) {
   const status = chirpStatus({
     fitted: card.chirpMassDetectorFrame !== null,
     chirpMassError: card.chirpMassError,
@@ -130,10 +132,30 @@ export const TriageCardBody = memo(function TriageCardBody({ card, deadlines, ti
             </span>
           ) : card.triageState === "new" ? (
             <AckTimer receivedAt={card.receivedAt} deadlines={deadlines} />
+          ) : card.acknowledgedBy ? (
+            <span
+              className="max-w-32 truncate text-xs text-muted"
+              data-testid="acknowledged-by"
+              title={`Acknowledged by ${card.acknowledgedBy.name}${card.acknowledgedAt ? ` at ${formatClock(card.acknowledgedAt, timeZone)}` : ""}`}
+            >
+              Ack. {card.acknowledgedBy.name}
+            </span>
           ) : null}
           {card.owner ? <Avatar name={card.owner.name} initials={card.owner.initials} /> : null}
         </span>
       </div>
+      {onAcknowledge && card.triageState === "new" && !card.withdrawn ? (
+        <button
+          type="button"
+          onClick={() => onAcknowledge(card.id)}
+          className="flex w-full items-center justify-center gap-1 rounded border border-accent/60 bg-accent/10 px-2 py-1 text-xs font-medium text-fg hover:bg-accent/20"
+          data-testid="card-acknowledge"
+          aria-label={`Acknowledge candidate ${card.externalId}`}
+        >
+          <Check aria-hidden className="h-3.5 w-3.5" />
+          Acknowledge
+        </button>
+      ) : null}
     </div>
   );
 });

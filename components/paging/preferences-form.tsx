@@ -12,6 +12,7 @@ import { preferencesFormSchema, toPreferencesInput, type PreferencesFormValues }
 import { pagingKeys } from "./query-keys";
 import type { PreferencesView } from "./types";
 import { ZonedTime } from "./zoned-time";
+import { timeInput24 } from "@/components/ui/iso-inputs";
 
 function Switch({ id, label, hint, ...props }: React.InputHTMLAttributes<HTMLInputElement> & { id: string; label: string; hint?: string }) {
   return (
@@ -77,10 +78,10 @@ export function PreferencesForm({ view, showTaskSites }: { view: PreferencesView
         {quietOn ? (
           <div className="grid max-w-sm grid-cols-2 gap-3">
             <Field label="From" htmlFor="pref-quiet-start" error={errors.quietStart?.message}>
-              <Input id="pref-quiet-start" type="time" {...form.register("quietStart")} aria-invalid={!!errors.quietStart} />
+              <Input id="pref-quiet-start" {...timeInput24} {...form.register("quietStart")} aria-invalid={!!errors.quietStart} />
             </Field>
             <Field label="Until" htmlFor="pref-quiet-end" error={errors.quietEnd?.message}>
-              <Input id="pref-quiet-end" type="time" {...form.register("quietEnd")} aria-invalid={!!errors.quietEnd} />
+              <Input id="pref-quiet-end" {...timeInput24} {...form.register("quietEnd")} aria-invalid={!!errors.quietEnd} />
             </Field>
           </div>
         ) : null}

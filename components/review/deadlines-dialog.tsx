@@ -11,12 +11,12 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { Field, Input } from "@/components/ui/field";
 import { apiFetch, errorText } from "@/lib/api-client";
-import { deadlinesSchema, type DeadlinesInput } from "@/lib/validations/review";
+import { acknowledgeDeadlineMinutes, deadlinesSchema, type DeadlinesInput } from "@/lib/validations/review";
 
 const fields: Array<{ key: keyof DeadlinesInput; label: string; hint: string }> = [
   { key: "feedLatencyMinutes", label: "Feed latency", hint: "merger → receipt" },
   { key: "pageMinutes", label: "Paging", hint: "receipt → first page sent" },
-  { key: "acknowledgeStepMinutes", label: "Acknowledgement", hint: "first page → acknowledged" },
+  { key: "acknowledgeStepMinutes", label: "Acknowledgement", hint: "first page → acknowledged; with paging, the deadline from receipt" },
   { key: "decisionMinutes", label: "Triage decision", hint: "acknowledged → decision" },
   { key: "claimMinutes", label: "Follow-up claim", hint: "pursue → first claim" },
   { key: "reportMinutes", label: "First report", hint: "first claim → first report" },
@@ -24,8 +24,20 @@ const fields: Array<{ key: keyof DeadlinesInput; label: string; hint: string }> 
   { key: "covered50Minutes", label: "Half the sky", hint: "merger → 50 % of the probability observed" },
   { key: "covered90Minutes", label: "Most of the sky", hint: "merger → 90 % observed" },
   { key: "acknowledgeWarnMinutes", label: "Board: warn after", hint: "from receipt, card timer turns amber" },
-  { key: "acknowledgeAlarmMinutes", label: "Board: alarm after", hint: "from receipt, card timer turns red" },
 ];
+
+/** The one acknowledgement deadline the two steps add up to, as the form stands. */
+function AckDeadlineNote({ page, acknowledge }: { page: number; acknowledge: number }) {
+  const total = Number.isFinite(page) && Number.isFinite(acknowledge) ? acknowledgeDeadlineMinutes({ pageMinutes: page, acknowledgeStepMinutes: acknowledge }) : null;
+  return (
+    <p className="rounded-md border border-line bg-raised px-3 py-2 text-sm" data-testid="ack-deadline-note">
+      Acknowledgement deadline:{" "}
+      <strong className="whitespace-nowrap">{total === null ? "—" : `${Number(total.toFixed(2))}\u00a0min`}</strong> after receipt (paging +
+      acknowledgement). The board shows a card as overdue from then, and the review counts an acknowledgement after it
+      as late.
+    </p>
+  );
+}
 
 /** Coordinators' editor for every deadline, in minutes; the server checks the role again (PUT /api/v1/settings/deadlines). */
 export function DeadlinesDialog({ initial }: { initial: DeadlinesInput }) {
@@ -66,6 +78,7 @@ export function DeadlinesDialog({ initial }: { initial: DeadlinesInput }) {
               );
             })}
           </div>
+          <AckDeadlineNote page={form.watch("pageMinutes")} acknowledge={form.watch("acknowledgeStepMinutes")} />
           <div className="flex justify-end gap-2">
             <Button onClick={() => setOpen(false)}>Cancel</Button>
             <Button type="submit" variant="primary" disabled={save.isPending}>

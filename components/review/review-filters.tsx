@@ -5,6 +5,7 @@ import { Input, Select } from "@/components/ui/field";
 import { sourceClasses, stages } from "@/db/schema/candidates";
 import { classLabels } from "@/lib/format/classes";
 import { stageLabels } from "@/components/candidate/stage-badge";
+import { dateInputIso } from "@/components/ui/iso-inputs";
 
 export interface FilterChoices {
   shifts: Array<{ id: string; label: string }>;
@@ -31,11 +32,11 @@ export function ReviewFilters({ values, choices, exportQuery, timeZone }: { valu
       <div className="grid grid-cols-2 gap-3 sm:grid-cols-4 xl:grid-cols-8">
         <div>
           <label htmlFor="f-from" className={label}>From</label>
-          <Input id="f-from" name="from" type="date" defaultValue={values.from} required />
+          <Input id="f-from" name="from" {...dateInputIso} defaultValue={values.from} required />
         </div>
         <div>
           <label htmlFor="f-to" className={label}>To (inclusive)</label>
-          <Input id="f-to" name="to" type="date" defaultValue={values.to} required />
+          <Input id="f-to" name="to" {...dateInputIso} defaultValue={values.to} required />
         </div>
         <Choice id="f-class" name="class" text="Class" value={values.class} options={sourceClasses.map((c) => [c, classLabels[c]])} />
         <Choice id="f-stage" name="stage" text="Stage" value={values.stage} options={stages.map((s) => [s, stageLabels[s]])} />

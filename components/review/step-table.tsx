@@ -60,7 +60,12 @@ export function StepTable({
                     <span className="block text-xs font-normal text-muted">{steps[id].span}</span>
                   </button>
                 </th>
-                <td className="px-3 py-2 text-right font-mono text-muted">{formatDurationMs(deadlinesMs[id])}</td>
+                <td
+                  className="whitespace-nowrap px-3 py-2 text-right font-mono text-muted"
+                  title={id === "acknowledge" ? "after receipt: the paging and acknowledgement deadlines together, as on the board" : undefined}
+                >
+                  {formatDurationMs(id === "acknowledge" ? deadlinesMs.page + deadlinesMs.acknowledge : deadlinesMs[id])}
+                </td>
                 <td className="px-3 py-2 text-right font-mono">{f.count}</td>
                 <td className="px-3 py-2 text-right font-mono">{formatDurationMs(f.medianMs)}</td>
                 <td className="px-3 py-2 text-right font-mono">{formatDurationMs(f.p90Ms)}</td>

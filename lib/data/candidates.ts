@@ -1,4 +1,5 @@
 import { and, asc, count, desc, eq, gte, inArray, isNull, or, sql, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db";
 import {
   candidateNotes,
@@ -17,6 +18,7 @@ import type { SessionUser } from "@/lib/auth/roles";
 import { eventKinds } from "@/lib/events/kinds";
 import type { CandidateListQuery, CandidateSortKey } from "@/lib/validations/candidates";
 import { appendEvent } from "./events";
+import { boardAckDeadlines } from "@/lib/validations/deadlines";
 import { getSetting } from "./settings";
 
 export interface PersonRef {
@@ -39,6 +41,8 @@ export interface BoardCard {
   /** last change of any kind (triage move, assignment, revision); columns after New list the latest first */
   updatedAt: number;
   acknowledgedAt: number | null;
+  /** who acknowledged it (null before, or when the acknowledgement came from no one, e.g. the demo seed) */
+  acknowledgedBy: PersonRef | null;
   withdrawn: boolean;
   owner: PersonRef | null;
   networkSnr: number;
@@ -76,6 +80,9 @@ const liveTasks = sql<number>`(select count(*) from ${followUpTasks} where ${fol
 const derivedField = <T>(path: string) => sql<T | null>`json_extract(${derivedQuantities.derived}, ${path})`;
 const coalescence = derivedField<number>("$.coalescenceTime");
 
+/** The person who acknowledged a card (a second join of users). */
+const ackUser = alias(users, "ack_user");
+
 /** Every card of the triage board in one query (current revision's derived numbers joined), newest first. */
 export async function getBoard(now: Date = new Date()): Promise<BoardData> {
   const db = await getDb();
@@ -85,6 +92,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
       .select({
         c: candidates,
         owner: { id: users.id, name: users.name, initials: users.initials },
+        acker: { id: ackUser.id, name: ackUser.name, initials: ackUser.initials },
         sd: derivedQuantities.chirpMassDetectorFrameSd,
         pBns: derivedQuantities.pBns,
         pNsbh: derivedQuantities.pNsbh,
@@ -99,6 +107,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
       })
       .from(candidates)
       .leftJoin(users, eq(users.id, candidates.ownerId))
+      .leftJoin(ackUser, eq(ackUser.id, candidates.acknowledgedById))
       .leftJoin(
         candidateRevisions,
         and(eq(candidateRevisions.triggerId, candidates.preferredTriggerId), eq(candidateRevisions.revision, candidates.currentRevision)),
@@ -114,7 +123,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
       .limit(BOARD_LIMIT),
     getSetting("deadlines"),
   ]);
-  const cards = rows.map(({ c, owner, sd, pBns, pNsbh, pBbh, pLowerGap, coalescence: tc, pAstro, chirpModel, chirpChi, chirpMassError, liveTasks: n }): BoardCard => ({
+  const cards = rows.map(({ c, owner, acker, sd, pBns, pNsbh, pBbh, pLowerGap, coalescence: tc, pAstro, chirpModel, chirpChi, chirpMassError, liveTasks: n }): BoardCard => ({
     id: c.id,
     externalId: c.externalId,
     source: c.source,
@@ -126,6 +135,7 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
     receivedAt: c.receivedAt.getTime(),
     updatedAt: c.updatedAt.getTime(),
     acknowledgedAt: c.acknowledgedAt?.getTime() ?? null,
+    acknowledgedBy: acker?.id ? acker : null,
     withdrawn: c.stage === "withdrawn" || c.withdrawnAt !== null,
     owner: owner?.id ? owner : null,
     networkSnr: c.networkSnr,
@@ -147,10 +157,8 @@ export async function getBoard(now: Date = new Date()): Promise<BoardData> {
   }));
   return {
     cards,
-    deadlines: {
-      acknowledgeWarnMinutes: deadlines.acknowledgeWarnMinutes,
-      acknowledgeAlarmMinutes: deadlines.acknowledgeAlarmMinutes,
-    },
+    // The one acknowledgement deadline (paging + acknowledgement step, from receipt) drives the card's alarm.
+    deadlines: boardAckDeadlines(deadlines),
     serverNow: now.getTime(),
     windowDays: BOARD_WINDOW_DAYS,
   };

@@ -1,6 +1,6 @@
-import { and, eq, inArray, isNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { Tx } from "@/db";
-import { candidates, notificationPreferences, siteObservers, users, type Candidate, type PagingPreferences } from "@/db/schema";
+import { candidateRevisions, candidates, notificationPreferences, siteObservers, skymaps, users, type Candidate, type PagingPreferences } from "@/db/schema";
 
 /* The people paging reaches and what it reads about them: active users, coordinators, time zones, site observers. */
 
@@ -35,6 +35,27 @@ export async function readCandidateRow(tx: Tx, candidateId: string): Promise<Can
   return row ?? null;
 }
 
+/** What a page says beyond the candidate row: the reported distance of its preferred trigger's current revision and
+ * the 90 % area of its newest sky map (each null when absent, as at first look before a map). */
+export async function readPageExtras(tx: Tx, candidate: Pick<Candidate, "id" | "preferredTriggerId" | "currentRevision">): Promise<{ distanceMpc: { mean: number; sd: number } | null; area90Deg2: number | null }> {
+  const [revision] = candidate.preferredTriggerId
+    ? await tx
+        .select({ distance: sql<string | null>`json_extract(${candidateRevisions.payload}, '$.distanceMpc')` })
+        .from(candidateRevisions)
+        .where(and(eq(candidateRevisions.triggerId, candidate.preferredTriggerId), eq(candidateRevisions.revision, candidate.currentRevision)))
+        .limit(1)
+    : [];
+  const [map] = await tx.select({ area90Deg2: skymaps.area90Deg2 }).from(skymaps).where(eq(skymaps.candidateId, candidate.id)).orderBy(desc(skymaps.createdAt)).limit(1);
+  let distanceMpc: { mean: number; sd: number } | null = null;
+  try {
+    const parsed = revision?.distance ? (JSON.parse(revision.distance) as { mean?: unknown; sd?: unknown }) : null;
+    if (parsed && typeof parsed.mean === "number" && typeof parsed.sd === "number") distanceMpc = { mean: parsed.mean, sd: parsed.sd };
+  } catch {
+    distanceMpc = null;
+  }
+  return { distanceMpc, area90Deg2: map?.area90Deg2 ?? null };
+}
+
 /** Every saved preferences row (few: one per person who saved). */
 export async function listSavedPreferences(tx: Tx): Promise<Array<{ userId: string; preferences: PagingPreferences }>> {
   return tx.select({ userId: notificationPreferences.userId, preferences: notificationPreferences.preferences }).from(notificationPreferences);
@@ -48,6 +69,12 @@ export async function activeObserversOf(tx: Tx, siteIds: string[]): Promise<Arra
     .from(siteObservers)
     .innerJoin(users, eq(users.id, siteObservers.userId))
     .where(and(inArray(siteObservers.siteId, siteIds), isNull(users.disabledAt)));
+}
+
+/** Every active observer: who hears about a task that any site may take. */
+export async function activeObservers(tx: Tx): Promise<string[]> {
+  const rows = await tx.select({ id: users.id }).from(users).where(and(eq(users.role, "observer"), isNull(users.disabledAt)));
+  return rows.map((r) => r.id);
 }
 
 /** A person's saved paging preferences, or null when they never saved any. */

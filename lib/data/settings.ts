@@ -16,7 +16,9 @@ import { appendEvent } from "./events";
 export const settingSchemas = {
   physics: physicsSettingsSchema,
   /**
-   * Minutes. acknowledgeWarn/Alarm run from receipt (the board's card timers). The others are the review's step
+   * Minutes. acknowledgeWarn runs from receipt (the board's amber timer); the board's alarm is the acknowledgement
+   * deadline, pageMinutes + acknowledgeStepMinutes from receipt (acknowledgeDeadlineMinutes in
+   * lib/validations/review.ts), so acknowledgeAlarmMinutes is no longer read (kept so stored rows parse). The others are the review's step
    * deadlines, each on that step's own duration (lib/review/steps.ts): merger → receipt (feedLatency),
    * receipt → first page (page), first page → acknowledged (acknowledgeStep), acknowledged → decision (decision),
    * pursue → first claim (claim), first claim → first report (report); and from the merger, the first exposure

@@ -214,10 +214,21 @@ export async function tasksWithSiteCodes(
   tx: Tx,
   candidateId: string,
   taskIds: string[],
-): Promise<Array<{ id: string; siteId: string | null; kind: string; siteCode: string | null }>> {
+): Promise<
+  Array<{ id: string; siteId: string | null; kind: FollowUpTask["kind"]; siteCode: string | null; priority: number; notes: string; windowStart: Date | null; windowEnd: Date | null }>
+> {
   if (taskIds.length === 0) return [];
   return tx
-    .select({ id: followUpTasks.id, siteId: followUpTasks.siteId, kind: followUpTasks.kind, siteCode: sites.code })
+    .select({
+      id: followUpTasks.id,
+      siteId: followUpTasks.siteId,
+      kind: followUpTasks.kind,
+      siteCode: sites.code,
+      priority: followUpTasks.priority,
+      notes: followUpTasks.notes,
+      windowStart: followUpTasks.windowStart,
+      windowEnd: followUpTasks.windowEnd,
+    })
     .from(followUpTasks)
     .leftJoin(sites, eq(sites.id, followUpTasks.siteId))
     .where(and(inArray(followUpTasks.id, taskIds), eq(followUpTasks.candidateId, candidateId)));

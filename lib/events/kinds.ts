@@ -12,7 +12,7 @@ export const eventKinds = {
   preferredChanged: "candidate.preferred-changed", // data: { fromTriggerId, toTriggerId, source, externalId, reason }
   triggerSplit: "candidate.trigger-split", // data: { triggerId, fromCandidateId, toCandidateId } (on both candidates)
   candidatesMerged: "candidate.merged", // data: { fromCandidateId, intoCandidateId, triggerIds } (on both)
-  candidateTriaged: "candidate.triaged", // from/to triage state; data: { reason?, via: "board" | "menu" | "email" | "push" | "api" }
+  candidateTriaged: "candidate.triaged", // from/to triage state; data: { reason?, via: "board" | "menu" | "card" | "email" | "push" | "api" }
   candidateAssigned: "candidate.assigned", // data: { ownerId, previousOwnerId }
   candidateNoteAdded: "candidate.note-added", // data: { noteId }
   taskCreated: "task.created", // data: { kind, siteId }

@@ -17,17 +17,31 @@ function formatNumber(x: number): string {
 export type CandidateSummary = Pick<
   Candidate,
   "id" | "externalId" | "source" | "stage" | "networkSnr" | "falseAlarmRatePerYear" | "dominantClass" | "detectors"
->;
+> &
+  Partial<Pick<Candidate, "chirpMassDetectorFrame">> & {
+    /** reported luminosity distance of the current revision, when the pipeline sent one */
+    distanceMpc?: { mean: number; sd: number } | null;
+    /** 90 % credible area of the newest sky map, when one is attached */
+    area90Deg2?: number | null;
+  };
 
 export interface MessageText {
   title: string;
   body: string;
 }
 
-/** One line of facts, the same in push, e-mail and the app. */
+/**
+ * One line of facts, the same in push, e-mail and the app: stage, SNR, FAR, class, then the chirp mass (detector
+ * frame), distance and 90 % sky area when known, and the detectors. Rapid triage estimates, said so once.
+ */
 export function candidateFacts(c: CandidateSummary): string {
   const cls = c.dominantClass ? `likely ${classLabels[c.dominantClass] ?? c.dominantClass}` : "class pending";
-  return `${c.stage}, SNR ${c.networkSnr.toFixed(1)}, FAR ${formatFalseAlarmRate(c.falseAlarmRatePerYear)}, ${cls}, seen by ${c.detectors.join(" ")}`;
+  const extras: string[] = [];
+  if (typeof c.chirpMassDetectorFrame === "number") extras.push(`chirp mass ${formatNumber(c.chirpMassDetectorFrame)} M☉ (detector frame)`);
+  if (c.distanceMpc) extras.push(`distance ${Math.round(c.distanceMpc.mean)} ± ${Math.round(c.distanceMpc.sd)} Mpc`);
+  if (typeof c.area90Deg2 === "number") extras.push(`90 % sky area ${Math.round(c.area90Deg2).toLocaleString("en-US")} deg²`);
+  const estimates = extras.length > 0 ? ` (rapid estimates: ${extras.join(", ")})` : "";
+  return `${c.stage}, SNR ${c.networkSnr.toFixed(1)}, FAR ${formatFalseAlarmRate(c.falseAlarmRatePerYear)}, ${cls}${estimates}, seen by ${c.detectors.join(" ")}`;
 }
 
 export type TextOccasion =

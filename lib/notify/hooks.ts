@@ -1,5 +1,6 @@
 import type { Tx } from "@/db";
 import { appendEvent } from "@/lib/data/events";
+import { activeObservers } from "@/lib/data/paging-people";
 import { tasksWithSiteCodes } from "@/lib/data/tasks";
 import { eventKinds } from "@/lib/events/kinds";
 import { notifyNow } from "./clock";
@@ -9,6 +10,7 @@ import { pageNewCandidate, readCandidateSummary } from "./plan";
 import { readPreferencesMany } from "./preferences";
 import { joinPagesLouder, type HeadlineForPaging } from "./repage";
 import { taskListenersBySite } from "./recipients";
+import { taskLine } from "./task-copy";
 
 /**
  * Where other areas tell paging that something happened, inside their own transaction, so the outbox rows
@@ -103,14 +105,17 @@ export async function onTasksCreated(tx: Tx, info: TasksCreated): Promise<void> 
   const now = notifyNow();
   const tasks = await tasksWithSiteCodes(tx, info.candidateId, info.taskIds);
   const bySite = await taskListenersBySite(tx, [...new Set(tasks.flatMap((t) => (t.siteId ? [t.siteId] : [])))]);
+  // A task any site may take reaches every observer.
+  const everyObserver = tasks.some((t) => t.siteId === null) ? await activeObservers(tx) : [];
   const perUser = new Map<string, string[]>();
   for (const task of tasks) {
-    for (const userId of task.siteId ? (bySite.get(task.siteId) ?? []) : []) {
-      perUser.set(userId, [...(perUser.get(userId) ?? []), `${task.kind} at ${task.siteCode ?? "?"}`]);
+    for (const userId of task.siteId ? (bySite.get(task.siteId) ?? []) : everyObserver) {
+      perUser.set(userId, [...(perUser.get(userId) ?? []), taskLine(task, now)]);
     }
   }
   if (perUser.size === 0) return;
   const candidate = await readCandidateSummary(tx, info.candidateId);
+  const claimPath = candidate ? `/follow-up?candidate=${encodeURIComponent(candidate.externalId)}` : "/follow-up";
   await queueTaskMessages(
     tx,
     [...perUser].map(([userId, items]) => ({
@@ -119,8 +124,8 @@ export async function onTasksCreated(tx: Tx, info: TasksCreated): Promise<void> 
         eventId: info.eventId,
         kind: "task-created",
         title: `Follow-up wanted for ${candidate?.externalId ?? "a candidate"}`,
-        body: `New task${items.length > 1 ? "s" : ""}: ${items.join(", ")}. Claim it on the follow-up board.`,
-        path: "/follow-up",
+        body: `New task${items.length > 1 ? "s" : ""}:\n${items.map((line) => `• ${line}`).join("\n")}\nClaim ${items.length > 1 ? "one" : "it"} on the follow-up board.`,
+        path: claimPath,
         candidateId: info.candidateId,
         taskId: tasks.length === 1 ? (tasks[0]?.id ?? null) : null,
         now,

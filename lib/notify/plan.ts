@@ -1,7 +1,7 @@
 import type { Tx } from "@/db";
 import { insertEscalationTimers } from "@/lib/data/escalations";
 import { appendEvent } from "@/lib/data/events";
-import { readCandidateRow, userTimeZone } from "@/lib/data/paging-people";
+import { readCandidateRow, readPageExtras, userTimeZone } from "@/lib/data/paging-people";
 import { findShiftAt } from "@/lib/data/rota";
 import { getSetting } from "@/lib/data/settings";
 import { eventKinds } from "@/lib/events/kinds";
@@ -20,8 +20,11 @@ export interface NewCandidateInfo {
   candidate?: CandidateSummary;
 }
 
+/** The candidate row plus what a page adds to it (distance, sky area). */
 export async function readCandidateSummary(tx: Tx, candidateId: string): Promise<CandidateSummary | null> {
-  return readCandidateRow(tx, candidateId);
+  const row = await readCandidateRow(tx, candidateId);
+  if (!row) return null;
+  return { ...row, ...(await readPageExtras(tx, row)) };
 }
 
 /**

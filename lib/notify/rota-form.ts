@@ -4,7 +4,7 @@ import type { ShiftFormValues } from "@/lib/validations/rota";
 
 /** "yyyy-MM-ddTHH:mm" read as wall-clock time in `timeZone` → the UTC instant. */
 export function localInputToInstant(local: string, timeZone: string): Date {
-  const m = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})$/.exec(local);
+  const m = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})$/.exec(local.trim());
   if (!m) throw new Error(`not a local date-time: ${local}`);
   const [, y, mo, d, h, mi] = m.map(Number) as [number, number, number, number, number, number];
   return new Date(new TZDate(y, mo - 1, d, h, mi, 0, 0, timeZone).getTime());

@@ -14,6 +14,17 @@ export function isOverDeadline(timing: Pick<StepTiming, "status" | "durationMs">
   return (timing.status === "done" || timing.status === "open") && timing.durationMs > deadlineMs;
 }
 
+/** Late when acknowledged (or still open) more than the paging + acknowledgement deadlines after receipt. */
+export function isAcknowledgementLate(
+  timing: Pick<StepTiming, "status" | "durationMs" | "startMs">,
+  receivedAtMs: number,
+  deadlinesMs: Pick<Record<StepId, number>, "page" | "acknowledge">,
+): boolean {
+  if (timing.durationMs === null || timing.startMs === null) return false;
+  if (timing.status !== "done" && timing.status !== "open") return false;
+  return timing.startMs + timing.durationMs - receivedAtMs > deadlinesMs.page + deadlinesMs.acknowledge;
+}
+
 /** Step timings and deadline flags for each candidate; deadlines are read at call time, never stored. */
 export function reviewCandidates(
   facts: readonly CandidateFacts[],
@@ -27,6 +38,9 @@ export function reviewCandidates(
       t.overDeadline = isOverDeadline(t, deadlinesMs[t.step]);
       steps[t.step] = t;
     }
+    // The acknowledgement deadline is one number from receipt (paging + acknowledgement step), the same as the
+    // board's "Overdue": a slow page does not make a prompt acknowledgement late, nor a quick one a late one prompt.
+    steps.acknowledge.overDeadline = isAcknowledgementLate(steps.acknowledge, f.receivedAtMs, deadlinesMs);
     return { facts: f, steps };
   });
 }

@@ -79,8 +79,9 @@ export function buildHandoffSummary(input: {
         externalId: r.facts.externalId,
         step,
         status: t.status,
-        durationMs: t.durationMs,
-        deadlineMs: input.deadlinesMs[step],
+        // The acknowledgement is due from receipt (paging + acknowledgement, as on the board): show it that way.
+        durationMs: step === "acknowledge" && t.startMs !== null ? t.startMs + t.durationMs - r.facts.receivedAtMs : t.durationMs,
+        deadlineMs: step === "acknowledge" ? input.deadlinesMs.page + input.deadlinesMs.acknowledge : input.deadlinesMs[step],
       });
     }
   }

@@ -17,7 +17,7 @@ export interface StepInfo {
 export const steps: Record<StepId, StepInfo> = {
   feed: { id: "feed", label: "Feed latency", span: "merger → receipt" },
   page: { id: "page", label: "Paging", span: "receipt → first page sent" },
-  acknowledge: { id: "acknowledge", label: "Acknowledgement", span: "first page → acknowledged" },
+  acknowledge: { id: "acknowledge", label: "Acknowledgement", span: "first page → acknowledged; due from receipt" },
   decide: { id: "decide", label: "Triage decision", span: "acknowledged → pursue / dismiss / expert" },
   claim: { id: "claim", label: "Follow-up claim", span: "pursue decision → first task claimed" },
   report: { id: "report", label: "First report", span: "first claim → first report" },

@@ -221,6 +221,10 @@ async function createCandidate(tx: GroupWrite, pending: PendingRevision): Promis
       falseAlarmRatePerYear: payload.falseAlarmRatePerYear,
       dominantClass: derived.headline.dominantClass,
       detectors: payload.detectors,
+      chirpMassDetectorFrame: derived.headline.chirpMassDetectorFrame,
+      distanceMpc: payload.distanceMpc ?? null,
+      // a first post has no sky map yet
+      area90Deg2: null,
     },
   });
   if (payload.stage === "withdrawn") await withdrawCandidate(tx.orm, row.candidateId, payload.revision, receivedAt);

@@ -53,4 +53,5 @@ export function requiresReason(to: TriageState): boolean {
   return to === "dismissed";
 }
 
-export type TriageVia = "board" | "menu" | "email" | "push" | "api";
+/** board: a drag; menu: the card menu; card: the card's own Acknowledge button; email/push: a one-click link. */
+export type TriageVia = "board" | "menu" | "card" | "email" | "push" | "api";

@@ -2,6 +2,9 @@ import { z } from "zod";
 import { sourceClasses, stages } from "@/db/schema/candidate-values";
 import { histogramBinKeys } from "@/lib/review/histogram";
 import { stepIds } from "@/lib/review/steps";
+import { acknowledgeDeadlineMinutes } from "./deadlines";
+
+export { acknowledgeDeadlineMinutes, boardAckDeadlines } from "./deadlines";
 
 /** A calendar day (in the viewer's time zone) or an instant with its offset. */
 const dayOrInstant = z.union([z.iso.date(), z.iso.datetime({ offset: true })]);
@@ -41,7 +44,8 @@ export const reviewListQuerySchema = z.preprocess(
 export type ReviewListQuery = z.infer<typeof reviewListQuerySchema>;
 
 /**
- * Every deadline, in minutes, as coordinators edit them. Bounds mirror settingSchemas.deadlines in
+ * Every deadline, in minutes, as coordinators edit them. `acknowledgeAlarmMinutes` is no longer read (the alarm is
+ * the acknowledgement deadline above); it stays so stored rows and older clients keep parsing. Bounds mirror settingSchemas.deadlines in
  * lib/data/settings.ts (kept apart so the browser form does not import the database; a test checks they agree).
  */
 export const deadlinesSchema = z
@@ -58,8 +62,8 @@ export const deadlinesSchema = z
     covered50Minutes: z.number().min(1).max(7 * 24 * 60),
     covered90Minutes: z.number().min(1).max(14 * 24 * 60),
   })
-  .refine((d) => d.acknowledgeWarnMinutes <= d.acknowledgeAlarmMinutes, {
+  .refine((d) => d.acknowledgeWarnMinutes <= acknowledgeDeadlineMinutes(d), {
     path: ["acknowledgeWarnMinutes"],
-    message: "the warning must come no later than the alarm",
+    message: "the warning must come no later than the acknowledgement deadline (paging + acknowledgement)",
   });
 export type DeadlinesInput = z.infer<typeof deadlinesSchema>;

@@ -37,10 +37,15 @@ export const rotaRangeQuerySchema = z
     path: ["to"],
   });
 
-const localDateTime = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, "pick a date and time");
+// "YYYY-MM-DD HH:mm", 24-hour (a "T" for the space as well); stored with the "T"
+const localDateTime = z
+  .string()
+  .trim()
+  .regex(/^\d{4}-\d{2}-\d{2}[T ]([01]\d|2[0-3]):[0-5]\d$/, "a date and 24-hour time, YYYY-MM-DD HH:mm")
+  .transform((s) => s.replace(" ", "T"));
 
 /**
- * The rota form: wall-clock times in the viewer's time zone (what `<input type="datetime-local">` gives),
+ * The rota form: wall-clock times in the viewer's time zone, typed as "YYYY-MM-DD HH:mm" (24-hour),
  * turned into the API body with `toShiftInput` (lib/notify/rota-form.ts).
  */
 export const shiftFormSchema = z

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { triageStates } from "@/db/schema/candidate-values";
 
-const vias = ["board", "menu", "email", "push", "api"] as const;
+const vias = ["board", "menu", "card", "email", "push", "api"] as const;
 
 /** POST /api/v1/candidates/:id/triage */
 export const transitionBodySchema = z

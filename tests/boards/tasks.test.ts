@@ -201,6 +201,7 @@ describe("observers hear about new tasks at their sites", () => {
     expect(res.status).toBe(201);
     const rows = await db.select().from(notifications).where(and(eq(notifications.candidateId, id), eq(notifications.kind, "task-created")));
     expect(new Set(rows.map((r) => r.userId))).toEqual(new Set([c.observer.user.id, c.observer2.user.id]));
-    expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/New tasks: .*galaxy-targeted at QTR/); expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/spectroscopy at QTR/);
+    expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/^New tasks:\n(.*\n)*• Galaxy-targeted imaging at QTR · /);
+    expect(rows.find((r) => r.channel === "in-app")?.body).toMatch(/\n• Spectroscopy at QTR · /);
   });
 });

@@ -8,9 +8,9 @@ import { check, type E2EContext } from "./types";
  */
 export default async function boardsE2E(ctx: E2EContext): Promise<void> {
   const tag = Date.now().toString(36).toUpperCase();
-  const names = { mouse: `EM${tag}`, keys: `EK${tag}`, menu: `EN${tag}`, pursue: `EP${tag}` };
+  const names = { mouse: `EM${tag}`, keys: `EK${tag}`, menu: `EN${tag}`, pursue: `EP${tag}`, tap: `ET${tag}` };
   for (const [i, externalId] of Object.values(names).entries()) {
-    // Four signals, not one: event times 5 s apart, outside the ±1 s window that groups triggers.
+    // Five signals, not one: event times 5 s apart, outside the ±1 s window that groups triggers.
     const res = await ctx.postCandidate(candidatePayload({ externalId, eventTime: new Date(Date.now() - i * 5_000) }));
     check(res.status === 201, `feed post for ${externalId} answered ${res.status}: ${JSON.stringify(res.body)}`);
   }
@@ -35,6 +35,13 @@ export default async function boardsE2E(ctx: E2EContext): Promise<void> {
     ctx.log("mouse drag moved the card to Taken");
     await card(other, names.mouse, "acknowledged").waitFor({ timeout: 15_000 });
     ctx.log("the second browser saw it live");
+
+    // One tap: the card's own Acknowledge button; the card then says who acknowledged it.
+    await card(page, names.tap).getByTestId("card-acknowledge").click();
+    const tapped = card(page, names.tap, "acknowledged");
+    await tapped.getByTestId("acknowledged-by").filter({ hasText: "Ada Quill" }).waitFor({ timeout: 15_000 });
+    await expectFocusOn(page, "data-card-id", names.tap, "acknowledged", "after the card's Acknowledge button");
+    ctx.log("one tap acknowledged a card, which names Ada Quill as the one who did");
 
     // Keyboard: Incoming → (Taken) → In review, with spoken announcements.
     const keyHandle = card(page, names.keys).getByTestId("card-handle");

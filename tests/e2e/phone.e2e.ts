@@ -88,6 +88,28 @@ export default async function phoneE2E(ctx: E2EContext): Promise<void> {
     await page.screenshot({ path: `${ctx.artifactsDir}/phone-board.png` });
     ctx.log("the card says the track was unusable and the board fits 390 px");
 
+    // A new candidate's toast, on a phone in the dark theme: dark like the desk, at the bottom, clear of the title.
+    await page.locator('[data-testid=live-status][data-status=live]').waitFor({ state: "attached", timeout: 15_000 });
+    const toastAt = new Date(nsbhTime.getTime() - 2 * 3_600_000);
+    const live = await ctx.postCandidate(candidatePayload({ externalId: `PT${tag}`, eventTime: toastAt }));
+    check(live.status === 201, `toast candidate answered ${live.status}`);
+    const toast = page.locator("[data-sonner-toast]").filter({ hasText: `PT${tag}` });
+    await toast.waitFor({ timeout: 20_000 });
+    const look = await page.evaluate(() => {
+      const toaster = document.querySelector("[data-sonner-toaster]");
+      const title = document.querySelector("main h1")?.getBoundingClientRect();
+      const box = [...document.querySelectorAll("[data-sonner-toast]")].at(-1)?.getBoundingClientRect();
+      return {
+        theme: toaster?.getAttribute("data-sonner-theme"),
+        y: toaster?.getAttribute("data-y-position"),
+        overlapsTitle: !!title && !!box && box.top < title.bottom && box.bottom > title.top,
+        dark: document.documentElement.classList.contains("dark"),
+      };
+    });
+    check(look.dark && look.theme === "dark", `toast theme ${look.theme ?? "none"} on a ${look.dark ? "dark" : "light"} desk`);
+    check(look.y === "bottom" && !look.overlapsTitle, `toast at ${look.y ?? "?"}, over the title: ${look.overlapsTitle}`);
+    ctx.log("on a phone the toast is dark like the desk and sits at the bottom, clear of the title");
+
     // Every other desk page a coordinator sees, each once it has drawn its main content.
     const pages = ["/candidates", "/follow-up", "/review", "/rota", "/sites", "/notifications", "/notifications/preferences", "/settings", "/settings/physics", "/dead-letters"];
     for (const path of pages) {
@@ -96,6 +118,9 @@ export default async function phoneE2E(ctx: E2EContext): Promise<void> {
       await page.locator("main h1").first().waitFor({ timeout: 20_000 });
       await page.waitForLoadState("networkidle").catch(() => undefined);
       await fits(path);
+      // Native date and time pickers follow the browser's locale (12-hour in en-US): the app's inputs are 24-hour ISO text.
+      const native = await page.locator("input[type=date], input[type=time], input[type=datetime-local]").count();
+      if (native > 0) problems.push(`${path}: ${native} native date/time input(s) that would show the browser's 12-hour format`);
     }
     await page.goto(`${ctx.baseUrl}/review`);
     const handoff = await page.locator('a[href^="/review/handoff/"]').first().getAttribute("href").catch(() => null);

@@ -34,8 +34,9 @@ export default async function reviewE2E(ctx: E2EContext): Promise<void> {
     await page.keyboard.press("Escape");
 
     // Acknowledgement deadline to 0.5 min: the table's deadline cell follows after the save.
-    await setAcknowledgementDeadline(page, "0.5", "30 s");
-    await setAcknowledgementDeadline(page, "4", "4 min");
+    // The acknowledgement's deadline is counted from receipt: paging (1 min) + the acknowledgement step.
+    await setAcknowledgementDeadline(page, "0.5", "1 min 30 s");
+    await setAcknowledgementDeadline(page, "4", "5 min");
     await page.screenshot({ path: `${ctx.artifactsDir}/review-coordinator.png`, fullPage: true });
 
     const csv = await page.request.get(`${ctx.baseUrl}/api/v1/review/export`);

@@ -88,7 +88,16 @@ describe("follow-up tasks", () => {
 
     const [southTask] = await db
       .insert(followUpTasks)
-      .values({ candidateId: candidate.id, kind: "spectroscopy", siteId: south?.id ?? null, updatedAt: now })
+      .values({
+        candidateId: candidate.id,
+        kind: "spectroscopy",
+        siteId: south?.id ?? null,
+        priority: 1,
+        notes: "slit on the brightest host",
+        windowStart: new Date(Date.UTC(2030, 0, 5, 21, 0)),
+        windowEnd: new Date(Date.UTC(2030, 0, 5, 23, 30)),
+        updatedAt: now,
+      })
       .returning();
     await db.transaction(async (tx) => {
       const event = await appendEvent(tx, { kind: "task.created", candidateId: candidate.id, taskId: southTask?.id });
@@ -96,7 +105,12 @@ describe("follow-up tasks", () => {
     });
     const chosen = await h.rows({ userId: chooser.id, candidateId: candidate.id });
     expect(chosen.map((r) => r.channel).sort()).toEqual(["email", "in-app"]);
-    expect(chosen.find((r) => r.channel === "in-app")?.body).toContain("spectroscopy at SOU");
+    // the kind's label, priority, window (UTC, with its year when not this year) and notes; not the kind's slug
+    const body = chosen.find((r) => r.channel === "in-app")?.body ?? "";
+    expect(body).toContain("Spectroscopy at SOU · P1 urgent · window 2030-01-05\u00a021:00 → 23:30\u00a0UTC · notes: slit on the brightest host");
+    expect(body).not.toContain("spectroscopy at");
+    // the claim link opens the follow-up board on this candidate's tasks
+    expect(chosen.find((r) => r.channel === "email")?.url).toMatch(new RegExp(`/follow-up\\?candidate=${candidate.externalId}$`));
 
     await db.transaction(async (tx) => {
       const event = await appendEvent(tx, { kind: "candidate.withdrawn", candidateId: candidate.id });
@@ -105,5 +119,23 @@ describe("follow-up tasks", () => {
     const cancelled = (await h.rows({ userId: chooser.id, candidateId: candidate.id })).filter((r) => r.kind === "task-cancelled");
     expect(cancelled.map((r) => r.channel).sort()).toEqual(["email", "in-app"]);
     expect(cancelled[0]?.title).toContain("cancelled");
+  });
+
+  it("reach every active observer for a task any site may take", async () => {
+    const db = await getDb();
+    const candidate = await h.postCandidate();
+    const a = await createTestUser("observer", { name: "Ada Anywhere" });
+    const b = await createTestUser("observer", { name: "Bo Anywhere" });
+    const shifter = await createTestUser("shifter", { name: "Cy Notanobserver" });
+    const [task] = await db.insert(followUpTasks).values({ candidateId: candidate.id, kind: "wide-field-tiling", siteId: null, updatedAt: new Date(h.clock.now()) }).returning();
+    await db.transaction(async (tx) => {
+      const event = await appendEvent(tx, { kind: "task.created", candidateId: candidate.id, taskId: task?.id });
+      await onTasksCreated(tx, { candidateId: candidate.id, eventId: event.id, taskIds: [task?.id ?? ""] });
+    });
+    for (const observer of [a, b]) {
+      const rows = await h.rows({ userId: observer.id, candidateId: candidate.id });
+      expect(rows.find((r) => r.channel === "in-app")?.body).toContain("Wide-field tiling at any site · P2 normal · no window: as soon as possible");
+    }
+    expect(await h.rows({ userId: shifter.id, candidateId: candidate.id })).toHaveLength(0);
   });
 });

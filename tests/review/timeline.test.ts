@@ -39,7 +39,7 @@ describe("step durations from the fixture audit log (worked by hand in fixture-l
     expect(brief(a)).toEqual({
       feed: ["done", 20, false], // merger −20 s → receipt 0
       page: ["done", 5, false], // receipt → push sent at +5 s (the in-app row at +1 s is no page)
-      acknowledge: ["done", 300, true], // page +5 s → acknowledged +305 s; 300 s > 4 min
+      acknowledge: ["done", 300, true], // page +5 s → acknowledged +305 s from receipt; past the 1 + 4 min deadline
       decide: ["done", 355, false], // +305 s → pursue at +660 s
       claim: ["done", 1140, false], // pursue +660 s → first claim at +30 min (1800 s), released and re-claimed later
       report: ["done", 9000, false], // first claim +1800 s → first report at +3 h (10 800 s)

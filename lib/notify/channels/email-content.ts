@@ -43,7 +43,7 @@ export function renderEmail(input: EmailContentInput): { subject: string; text: 
   const html = `<!doctype html><html><body style="font-family:system-ui,sans-serif;color:#1b2330;line-height:1.45">
 <p>${escapeHtml(input.recipientName)},</p>
 <h2 style="margin:0 0 6px;font-size:18px">${escapeHtml(input.title)}</h2>
-<p style="margin:0 0 16px">${escapeHtml(input.body)}</p>
+<p style="margin:0 0 16px;white-space:pre-line">${escapeHtml(input.body)}</p>
 <p>${input.ackPageUrl ? button(input.ackPageUrl, "Acknowledge", true) : ""}${input.url ? button(input.url, "Open in Chirpdesk", false) : ""}</p>
 ${expires ? `<p style="font-size:12px;color:#5b6573">The acknowledge link works once, until ${escapeHtml(expires)}.</p>` : ""}
 <p style="font-size:12px;color:#5b6573">— Chirpdesk pager</p>

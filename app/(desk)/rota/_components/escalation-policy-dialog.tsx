@@ -12,6 +12,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import { stages } from "@/db/schema/candidates";
 import { apiFetch, ApiClientError } from "@/lib/api-client";
 import { escalationPolicySchema, escalationTargets, policyActions, type EscalationPolicy } from "@/lib/validations/paging";
+import { timeInput24 } from "@/components/ui/iso-inputs";
 
 type FormIn = z.input<typeof escalationPolicySchema>;
 
@@ -64,10 +65,10 @@ export function EscalationPolicyDialog({ policy, onClose, onSaved }: { policy: E
         </fieldset>
         <div className="grid grid-cols-2 gap-3">
           <Field label="Night starts" htmlFor="night-start" error={errors.nightStart?.message}>
-            <Input id="night-start" type="time" {...form.register("nightStart")} />
+            <Input id="night-start" {...timeInput24} {...form.register("nightStart")} />
           </Field>
           <Field label="Night ends" htmlFor="night-end" error={errors.nightEnd?.message}>
-            <Input id="night-end" type="time" {...form.register("nightEnd")} />
+            <Input id="night-end" {...timeInput24} {...form.register("nightEnd")} />
           </Field>
         </div>
         <fieldset className="space-y-3">

@@ -10,6 +10,7 @@ import { apiFetch, ApiClientError } from "@/lib/api-client";
 import { instantToLocalInput, toShiftInput } from "@/lib/notify/rota-form";
 import { shiftFormSchema, type ShiftFormValues } from "@/lib/validations/rota";
 import type { RotaPerson, ShiftView } from "./types";
+import { dateTimeInputIso } from "@/components/ui/iso-inputs";
 
 /** API field → form field, so a 422 lands beside the right input. */
 const fieldOf: Record<string, keyof ShiftFormValues> = { startsAt: "startsLocal", endsAt: "endsLocal", primaryId: "primaryId", backupId: "backupId", notes: "notes" };
@@ -35,8 +36,9 @@ export function ShiftDialog({
   const form = useForm<ShiftFormValues>({
     resolver: zodResolver(shiftFormSchema),
     values: {
-      startsLocal: instantToLocalInput(shift ? Date.parse(shift.startsAt) : defaults.startsAt, timeZone),
-      endsLocal: instantToLocalInput(shift ? Date.parse(shift.endsAt) : defaults.endsAt, timeZone),
+      // shown as "YYYY-MM-DD HH:mm" (the schema takes the space or a "T")
+      startsLocal: instantToLocalInput(shift ? Date.parse(shift.startsAt) : defaults.startsAt, timeZone).replace("T", " "),
+      endsLocal: instantToLocalInput(shift ? Date.parse(shift.endsAt) : defaults.endsAt, timeZone).replace("T", " "),
       primaryId: shift?.primary.id ?? "",
       backupId: shift?.backup?.id ?? "",
       notes: shift?.notes ?? "",
@@ -64,10 +66,10 @@ export function ShiftDialog({
       <form onSubmit={form.handleSubmit((v) => save.mutate(v))} className="space-y-3" noValidate>
         <div className="grid grid-cols-2 gap-3">
           <Field label="Starts" htmlFor="shift-start" error={errors.startsLocal?.message}>
-            <Input id="shift-start" type="datetime-local" {...form.register("startsLocal")} aria-invalid={!!errors.startsLocal} />
+            <Input id="shift-start" {...dateTimeInputIso} {...form.register("startsLocal")} aria-invalid={!!errors.startsLocal} />
           </Field>
           <Field label="Ends" htmlFor="shift-end" error={errors.endsLocal?.message}>
-            <Input id="shift-end" type="datetime-local" {...form.register("endsLocal")} aria-invalid={!!errors.endsLocal} />
+            <Input id="shift-end" {...dateTimeInputIso} {...form.register("endsLocal")} aria-invalid={!!errors.endsLocal} />
           </Field>
         </div>
         <div className="grid grid-cols-2 gap-3">
