@@ -9,6 +9,8 @@ export const queryKeys = {
   coverage: (id: string) => ["coverage", id] as const,
   observations: (id: string) => ["observations", id] as const,
   counterparts: (id: string) => ["counterparts", id] as const,
+  /** a candidate's pointing plans (the task view and the sky map read them under this prefix) */
+  plans: (candidateId: string) => ["plans", candidateId] as const,
 };
 
 export type QueryKey = readonly unknown[];
@@ -45,6 +47,8 @@ export function keysForEvent(event: EventLike): QueryKey[] {
     return keys;
   }
   if (event.kind.startsWith("task.")) return [queryKeys.tasks, queryKeys.board, ...candidate];
+  // a plan or a tick changes the task cards' pointing counts and the sky map's footprints
+  if (event.kind.startsWith("plan.")) return [queryKeys.tasks, ...(event.candidateId ? [queryKeys.plans(event.candidateId)] : []), ...candidate];
   if (event.kind === "shift.changed" || event.kind === "user.changed") return [queryKeys.roster];
   if (event.kind === "settings.changed") return [queryKeys.board];
   return keys;

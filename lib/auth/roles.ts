@@ -24,6 +24,8 @@ export const can = {
   /** pointing plans: shifters and coordinators for any site, observers for their own sites' instruments (checked in the service) */
   planPointings: ["shifter", "observer", "coordinator"],
   claimTask: ["observer", "coordinator"],
+  /** tick a planned pointing done: observers at the plan's site or holding its task, coordinators anywhere */
+  tickPointings: ["observer", "coordinator"],
   /** log exposures (observers only for tasks they hold or their sites' instruments, checked by the service) */
   recordObservations: ["shifter", "observer", "coordinator"],
   /** report a transient found in follow-up */

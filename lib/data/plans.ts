@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, ne } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, ne, or, sql, type SQL } from "drizzle-orm";
 import type { Tx } from "@/db";
 import {
   observations,
@@ -71,10 +71,10 @@ export async function observesAtSite(tx: Tx, siteId: string, userId: string): Pr
   return Boolean(row);
 }
 
-/** Every pointing of the candidate's open plans (not closed), except `exceptPlanId`'s: the sky other plans take. */
-export async function openPlanTiles(tx: Tx, candidateId: string, exceptPlanId?: string): Promise<PlacedTileRow[]> {
+/** Every pointing of the candidate's open plans (not closed), except those of `exceptTaskId`: the sky other plans take. */
+export async function openPlanTiles(tx: Tx, candidateId: string, exceptTaskId?: string): Promise<PlacedTileRow[]> {
   const where = [eq(plans.candidateId, candidateId), isNull(plans.closedAt)];
-  if (exceptPlanId) where.push(ne(plans.id, exceptPlanId));
+  if (exceptTaskId) where.push(or(isNull(plans.taskId), ne(plans.taskId, exceptTaskId)) as SQL);
   return tx
     .select({ raDeg: planPointings.raDeg, decDeg: planPointings.decDeg, footprint: plans.footprint })
     .from(planPointings)
@@ -145,4 +145,70 @@ export async function listCandidatePlans(tx: Tx, candidateId: string): Promise<S
 export async function listTaskPlans(tx: Tx, taskIds: string[]): Promise<StoredPlan[]> {
   if (taskIds.length === 0) return [];
   return readStoredPlans(tx, await selectPlans(tx).where(inArray(plans.taskId, taskIds)).orderBy(desc(plans.createdAt), desc(plans.id)));
+}
+
+/** Closes the open plans of these tasks (a replaced plan, a cancelled task): they no longer hold sky for others. */
+export async function closePlansOfTasks(tx: Tx, taskIds: string[], at: Date): Promise<void> {
+  if (taskIds.length === 0) return;
+  await tx.update(plans).set({ closedAt: at }).where(and(inArray(plans.taskId, taskIds), isNull(plans.closedAt)));
+}
+
+/** One pointing with its plan's candidate, task, site and open state, and whether `userId` observes at that site. */
+export async function readPointingFor(tx: Tx, planId: string, pointingId: string, userId: string) {
+  const [row] = await tx
+    .select({
+      pointing: planPointings,
+      candidateId: plans.candidateId,
+      taskId: plans.taskId,
+      siteId: plans.siteId,
+      closedAt: plans.closedAt,
+      follows: siteObservers.userId,
+    })
+    .from(planPointings)
+    .innerJoin(plans, eq(plans.id, planPointings.planId))
+    .leftJoin(siteObservers, and(eq(siteObservers.siteId, plans.siteId), eq(siteObservers.userId, userId)))
+    .where(and(eq(planPointings.id, pointingId), eq(planPointings.planId, planId)))
+    .limit(1);
+  if (!row) return null;
+  return { pointing: row.pointing, candidateId: row.candidateId, taskId: row.taskId, siteId: row.siteId, closed: row.closedAt !== null, observesThere: row.follows !== null };
+}
+
+export async function setPointingDone(tx: Tx, pointingId: string, done: { at: Date; byId: string } | null): Promise<void> {
+  await tx
+    .update(planPointings)
+    .set({ doneAt: done?.at ?? null, doneById: done?.byId ?? null })
+    .where(eq(planPointings.id, pointingId));
+}
+
+/** What a task card shows of its newest open plan: pointings, how many have a time, how many are done. */
+export interface TaskPlanSummary {
+  planId: string;
+  pointings: number;
+  scheduled: number;
+  done: number;
+  scheduledProbability: number;
+}
+
+export async function taskPlanSummaries(tx: Tx, taskIds: string[]): Promise<Map<string, TaskPlanSummary>> {
+  const out = new Map<string, TaskPlanSummary>();
+  if (taskIds.length === 0) return out;
+  const rows = await tx
+    .select({
+      taskId: plans.taskId,
+      planId: plans.id,
+      scheduledProbability: plans.scheduledProbability,
+      pointings: sql<number>`count(${planPointings.id})`,
+      scheduled: sql<number>`count(${planPointings.plannedStart})`,
+      done: sql<number>`count(${planPointings.doneAt})`,
+    })
+    .from(plans)
+    .leftJoin(planPointings, eq(planPointings.planId, plans.id))
+    .where(and(inArray(plans.taskId, taskIds), isNull(plans.closedAt)))
+    .groupBy(plans.id)
+    .orderBy(desc(plans.createdAt));
+  for (const r of rows) {
+    if (!r.taskId || out.has(r.taskId)) continue;
+    out.set(r.taskId, { planId: r.planId, pointings: Number(r.pointings), scheduled: Number(r.scheduled), done: Number(r.done), scheduledProbability: r.scheduledProbability });
+  }
+  return out;
 }

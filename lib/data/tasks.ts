@@ -13,6 +13,7 @@ import {
 } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/roles";
 import type { TaskListQuery } from "@/lib/validations/tasks";
+import { taskPlanSummaries, type TaskPlanSummary } from "./plans";
 
 export interface TaskCard {
   id: string;
@@ -29,6 +30,8 @@ export interface TaskCard {
   candidate: { id: string; externalId: string; stage: string; withdrawn: boolean };
   site: { id: string; code: string; name: string } | null;
   claimedBy: { id: string; name: string; initials: string } | null;
+  /** the task's current pointing plan, in short; null without one */
+  plan: TaskPlanSummary | null;
 }
 
 /** States a task is still being worked in: a withdrawal or a cancellation ends them. */
@@ -39,6 +42,8 @@ export async function listTasks(
   query: Partial<TaskListQuery> & {
     /** exactly this candidate (the candidate's own task list), unlike `candidate`, which also matches id fragments */
     candidateId?: string;
+    /** exactly this task (the task's own view) */
+    taskId?: string;
   },
   viewer: SessionUser,
 ): Promise<TaskCard[]> {
@@ -49,6 +54,7 @@ export async function listTasks(
   if (query.state) where.push(eq(followUpTasks.state, query.state));
   if (query.mine) where.push(eq(followUpTasks.claimedById, viewer.id));
   if (query.candidateId !== undefined) where.push(eq(followUpTasks.candidateId, query.candidateId));
+  if (query.taskId !== undefined) where.push(eq(followUpTasks.id, query.taskId));
   if (query.candidate) {
     where.push(
       or(eq(candidates.id, query.candidate), sql`instr(lower(${candidates.externalId}), lower(${query.candidate})) > 0`) as SQL,
@@ -73,6 +79,7 @@ export async function listTasks(
     .where(where.length ? and(...where) : undefined)
     .orderBy(asc(followUpTasks.priority), desc(followUpTasks.createdAt))
     .limit(1000);
+  const planOf = await taskPlanSummaries(db, rows.map((r) => r.task.id));
   return rows.map(({ task, candidate, site, claimer }) => ({
     id: task.id,
     kind: task.kind,
@@ -93,6 +100,7 @@ export async function listTasks(
     },
     site: site?.id ? site : null,
     claimedBy: claimer?.id ? claimer : null,
+    plan: planOf.get(task.id) ?? null,
   }));
 }
 

@@ -84,8 +84,8 @@ export function planPaths() {
           "201": { description: "the stored plan", content: json("Plan") },
           "401": failure("not signed in"),
           "403": failure("role not allowed, or an observer planning another site's instrument"),
-          "404": failure("no such candidate or instrument"),
-          "409": failure("the candidate has no sky map"),
+          "404": failure("no such candidate, instrument or task"),
+          "409": failure("the candidate has no sky map, or the task is finished"),
           "422": failure("a field out of range (level 0.5–0.99, maxPointings 1–500, end after start, window ≤ 48 h, a filter the instrument has); every field at fault"),
         },
       },
@@ -96,6 +96,22 @@ export function planPaths() {
         description: "Roles: shifter, observer, coordinator, admin.",
         parameters: [idParam],
         responses: { "200": { description: "the plan", content: json("Plan") }, "401": failure("not signed in"), "404": failure("no such plan") },
+      },
+    },
+    "/api/v1/plans/{id}/pointings/{pointingId}": {
+      patch: {
+        summary: "Tick a planned pointing done, or take the tick back",
+        description: 'Body { "done": true | false }. Roles: observers at the plan\'s site or holding its task; coordinators.',
+        parameters: [idParam, { name: "pointingId", in: "path", required: true, schema: { type: "string" } }],
+        requestBody: { required: true, content: { "application/json": { schema: { type: "object", required: ["done"], properties: { done: { type: "boolean" } }, additionalProperties: false } } } },
+        responses: {
+          "200": { description: "{ pointing: PlanPointing }" },
+          "401": failure("not signed in"),
+          "403": failure("role not allowed, or an observer of another site"),
+          "404": failure("no such pointing in this plan"),
+          "409": failure("the plan was replaced or its task cancelled"),
+          "422": failure("done is not a boolean"),
+        },
       },
     },
     "/api/v1/plans/{id}/export": {

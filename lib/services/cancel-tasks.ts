@@ -2,6 +2,7 @@ import { ApiError } from "@/lib/api/errors";
 import type { Tx } from "@/db";
 import type { FollowUpTask } from "@/db/schema";
 import { appendEvent } from "@/lib/data/events";
+import { closePlansOfTasks } from "@/lib/data/plans";
 import { cancelTaskRows } from "@/lib/data/tasks";
 import { eventKinds } from "@/lib/events/kinds";
 import { onTasksCancelled } from "@/lib/notify/hooks";
@@ -27,6 +28,8 @@ export async function cancelTasks(tx: Tx, input: CancelTasksInput): Promise<Foll
   if (input.tasks.length === 0) return [];
   const cancelled = await cancelTaskRows(tx, input.tasks, input.at);
   if (cancelled.length !== input.tasks.length) throw new ApiError(409, "the task changed meanwhile; reload");
+  // their pointing plans no longer hold sky for other sites' plans
+  await closePlansOfTasks(tx, input.tasks.map((t) => t.id), input.at);
   let firstEventId: number | null = null;
   for (const task of input.tasks) {
     const event = await appendEvent(tx, {

@@ -1,11 +1,13 @@
 import { getDb } from "@/db";
+import type { FollowUpTask } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { comingNight } from "@/lib/astro";
 import { DEFAULT_MOON_DISTANCE_DEG } from "@/lib/astro/schedule";
 import type { SessionUser } from "@/lib/auth/roles";
 import { appendEvent } from "@/lib/data/events";
 import { findInstrument } from "@/lib/data/instruments";
-import { insertPlan, observedFootprints, observesAtSite, openPlanTiles, readPlan, readPlanSite, type PlanSiteRow } from "@/lib/data/plans";
+import { readTask } from "@/lib/data/tasks";
+import { closePlansOfTasks, insertPlan, observedFootprints, observesAtSite, openPlanTiles, readPlan, readPlanSite, type PlanSiteRow } from "@/lib/data/plans";
 import { listCandidateSkymaps, storedSkymapMap } from "@/lib/data/skymaps";
 import { readCandidateRow } from "@/lib/data/triggers";
 import { eventKinds } from "@/lib/events/kinds";
@@ -28,9 +30,9 @@ function scheduleSite(site: PlanSiteRow): ScheduleSite {
  * The window: from `start` (default now) to `end` (default: the end of the site's coming astronomical night after
  * the start; a full day when the Sun does not get 18° down within a day, so the schedule says why nothing fits).
  */
-function planWindow(site: ScheduleSite, input: Pick<PlanRequest, "start" | "end">, now: Date): { start: Date; end: Date } {
-  const start = input.start ?? now;
-  const end = input.end ?? comingNight(site, start)?.end ?? new Date(start.getTime() + 24 * HOUR_MS);
+function planWindow(site: ScheduleSite, input: Pick<PlanRequest, "start" | "end">, task: FollowUpTask | null, now: Date): { start: Date; end: Date } {
+  const start = input.start ?? task?.windowStart ?? now;
+  const end = input.end ?? task?.windowEnd ?? comingNight(site, start)?.end ?? new Date(start.getTime() + 24 * HOUR_MS);
   const issue = windowIssue(start, end);
   if (issue) throw fieldError("end", input.end ? issue : `${issue} (the window starts ${start.toISOString()})`);
   return { start, end };
@@ -40,9 +42,11 @@ function planWindow(site: ScheduleSite, input: Pick<PlanRequest, "start" | "end"
  * Plans pointings for one instrument over a candidate's newest sky map. Checks (404 candidate or instrument, 403
  * an observer planning another site's instrument, 409 no sky map, 422 filter or window) and the reads come first;
  * the planner and the scheduler run outside any write transaction (they take seconds on big maps); then the plan,
- * its pointings and the audit event are written in one transaction. `taskId` attaches the plan to a task.
+ * its pointings and the audit event are written in one transaction. With `taskId` the plan belongs to that task
+ * (404 unknown, 422 another candidate's or another site's, 409 finished): the task's window is the default one, the
+ * task's earlier plans are closed and their sky is not avoided (the new plan replaces them).
  */
-export async function planFollowUp(actor: SessionUser, candidateId: string, input: PlanRequest, now: Date, taskId: string | null = null): Promise<PlanRecord> {
+export async function planFollowUp(actor: SessionUser, candidateId: string, input: PlanRequest, now: Date): Promise<PlanRecord> {
   const db = await getDb();
   if (!(await readCandidateRow(db, candidateId))) throw new ApiError(404, "candidate not found");
   const instrument = await findInstrument(db, input.instrumentId);
@@ -50,6 +54,12 @@ export async function planFollowUp(actor: SessionUser, candidateId: string, inpu
   if (actor.role === "observer" && !(await observesAtSite(db, instrument.siteId, actor.id))) {
     throw new ApiError(403, "observers plan only for the instruments of the sites they observe at");
   }
+  const task = input.taskId ? await readTask(db, input.taskId) : null;
+  const taskId = task?.id ?? null;
+  if (input.taskId && !task) throw new ApiError(404, "task not found");
+  if (task && task.candidateId !== candidateId) throw fieldError("taskId", "the task belongs to another candidate");
+  if (task?.siteId && task.siteId !== instrument.siteId) throw fieldError("instrumentId", "choose an instrument of the task's site");
+  if (task && (task.state === "cancelled" || task.state === "reported")) throw new ApiError(409, `the task is ${task.state}; plan for an unfinished task`);
   const siteRow = await readPlanSite(db, instrument.siteId);
   if (!siteRow) throw new ApiError(404, "the instrument's site not found");
   const [skymap] = await listCandidateSkymaps(candidateId);
@@ -58,9 +68,9 @@ export async function planFollowUp(actor: SessionUser, candidateId: string, inpu
     throw fieldError("filter", `${instrument.name} has the filters ${instrument.filters.join(", ")}`);
   }
   const site = scheduleSite(siteRow);
-  const window = planWindow(site, input, now);
+  const window = planWindow(site, input, task, now);
   const avoid = [
-    ...(input.avoid === "planned-and-observed" ? await openPlanTiles(db, candidateId) : []),
+    ...(input.avoid === "planned-and-observed" ? await openPlanTiles(db, candidateId, taskId ?? undefined) : []),
     ...(input.avoid === "none" ? [] : await observedFootprints(db, candidateId)),
   ];
 
@@ -71,6 +81,7 @@ export async function planFollowUp(actor: SessionUser, candidateId: string, inpu
   const scheduledProbability = unionProbability(map.probability, greedy.pointings.filter((_, i) => times[i]?.plannedStart));
 
   return db.transaction(async (tx) => {
+    if (taskId) await closePlansOfTasks(tx, [taskId], now);
     const plan = await insertPlan(
       tx,
       {

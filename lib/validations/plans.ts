@@ -25,6 +25,8 @@ export const planRequestSchema = z
     exposureS: z.number().int("whole seconds").min(1, "at least 1 s").max(86_400, "at most 86 400 s").optional(),
     filter: z.string().trim().min(1, "must not be empty").max(20, "at most 20 characters").optional(),
     avoid: z.enum(planAvoidModes, { error: `one of ${planAvoidModes.join(", ")}` }).default("planned-and-observed"),
+    /** Attach the plan to this follow-up task (its site's instrument; its window by default); replaces its earlier plan. */
+    taskId: z.string().trim().min(1, "must not be empty").max(200).optional(),
   })
   .superRefine((body, ctx) => {
     const issue = body.start && body.end ? windowIssue(body.start, body.end) : null;
@@ -47,3 +49,10 @@ export type PlanExportFormat = (typeof planExportFormats)[number];
 export const planExportQuerySchema = z.object({
   format: z.enum(planExportFormats, { error: "csv or json" }).default("csv"),
 });
+
+/** PATCH /api/v1/plans/{id}/pointings/{pointingId}: tick a pointing done, or take the tick back. */
+export const pointingTickSchema = z.strictObject({ done: z.boolean({ error: "true or false" }) });
+export type PointingTick = z.output<typeof pointingTickSchema>;
+
+const segment = z.string().min(1, "must not be empty").max(200, "must be at most 200 characters");
+export const planPointingParams = z.object({ id: segment, pointingId: segment });

@@ -34,4 +34,9 @@ describe("which queries a live event refreshes", () => {
     expect(keys).toContainEqual(["coverage", "c4"]);
     expect(keys).toContainEqual(["counterparts", "c4"]);
   });
+
+  it("plan events refresh the follow-up board, that candidate's plans and the candidate", () => {
+    expect(keysForEvent(event(eventKinds.pointingDone, "c3", "t2"))).toEqual([["tasks"], ["plans", "c3"], ["candidate", "c3"]]);
+    expect(keysForEvent(event(eventKinds.planCreated, "c3"))).toEqual([["tasks"], ["plans", "c3"], ["candidate", "c3"]]);
+  });
 });
