@@ -54,6 +54,15 @@ export const TaskCardBody = memo(function TaskCardBody({ task, timeZone, actions
           Window {window}
         </p>
       ) : null}
+      <p className="flex flex-wrap items-center gap-1 text-muted" data-testid="task-plan-summary">
+        <Link href={`/follow-up/${task.id}`} prefetch={false} className="text-accent hover:underline">
+          {task.plan
+            ? `${task.plan.pointings} pointings · ${Math.round(task.plan.scheduledProbability * 100)} % scheduled${task.plan.done ? ` · ${task.plan.done} done` : ""}`
+            : task.site
+              ? "Open · plan pointings"
+              : "Open task"}
+        </Link>
+      </p>
       {task.notes ? <p className="line-clamp-2 text-muted">{task.notes}</p> : null}
       {task.result ? <p className="rounded bg-ok/10 px-1.5 py-1 text-fg">Result: {task.result}</p> : null}
       <div className="flex flex-wrap items-center gap-1.5">

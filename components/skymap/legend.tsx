@@ -23,7 +23,24 @@ export interface LegendSite {
 }
 
 /** What the colours, lines and markers of the sky views mean; site chips show or hide each site's band. */
-export function SkymapLegend({ sites, onToggle, observedCount = 0 }: { sites: ReadonlyArray<LegendSite>; onToggle: (code: string) => void; observedCount?: number }) {
+export interface LegendPlannedSite {
+  code: string;
+  colour: readonly [number, number, number];
+  dash: string;
+  count: number;
+}
+
+export function SkymapLegend({
+  sites,
+  onToggle,
+  observedCount = 0,
+  plannedSites = [],
+}: {
+  sites: ReadonlyArray<LegendSite>;
+  onToggle: (code: string) => void;
+  observedCount?: number;
+  plannedSites?: ReadonlyArray<LegendPlannedSite>;
+}) {
   const palette = skyPalettes[skyThemeOf(useTheme().resolvedTheme)];
   return (
     <div className="space-y-3 text-xs">
@@ -57,6 +74,21 @@ export function SkymapLegend({ sites, onToggle, observedCount = 0 }: { sites: Re
           </div>
         ) : null}
       </dl>
+      {plannedSites.length ? (
+        <div className="space-y-1.5" data-testid="planned-legend">
+          <p className="text-muted">Outlined tiles: each site&apos;s planned pointings, one colour and line pattern per site (numbered in the zoomed view).</p>
+          <ul className="flex flex-wrap gap-1.5">
+            {plannedSites.map((s) => (
+              <li key={s.code} className="inline-flex items-center gap-1.5 rounded border border-line px-2 py-0.5 font-mono">
+                <svg aria-hidden width={22} height={6}>
+                  <line x1={0} x2={22} y1={3} y2={3} stroke={rgbCss(s.colour)} strokeWidth={2} strokeDasharray={s.dash || undefined} />
+                </svg>
+                {s.code} · {s.count}
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
       {sites.length ? (
         <div className="space-y-1.5">
           <p className="text-muted">

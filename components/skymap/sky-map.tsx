@@ -7,7 +7,9 @@ import type { NightBand } from "./night-band";
 import { projectView, type SkyView } from "./projection";
 import { paint, samplePixels, type RasterGrid, type Rgb } from "./raster";
 import { formatDec, formatRa } from "./format";
+import type { SkyFootprint } from "./footprints";
 import { outlinePolygon, type SkyOutline } from "./outlines";
+import { rgbCss } from "./query-keys";
 import { skyPalettes, skyThemeOf } from "./palette";
 
 export interface SkyMarker {
@@ -28,7 +30,13 @@ export interface SkyMapProps {
   maxWidth?: number;
   /** footprints to draw over the map (observed: filled, solid; planned: dashed) */
   outlines?: ReadonlyArray<SkyOutline>;
+  /** Planned tiles of the pointing plans, outlined in their site's colour and line pattern. */
+  planTiles?: ReadonlyArray<SkyFootprint>;
+  /** Write each planned tile's number at its centre (the zoomed view). */
+  numbered?: boolean;
 }
+
+const NO_TILES: ReadonlyArray<SkyFootprint> = [];
 
 /** "9h", "9h20m": compact RA labels for grid lines. */
 function raLabel(raDeg: number): string {
@@ -62,7 +70,7 @@ function useWidth(ref: React.RefObject<HTMLElement | null>, maxWidth: number): n
 }
 
 /** One sky view: probability raster and contours on a canvas, grid, labels and markers in SVG on top. */
-export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH, outlines = [] }: SkyMapProps) {
+export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH, outlines = [], planTiles = NO_TILES, numbered = false }: SkyMapProps) {
   const wrapper = useRef<HTMLDivElement>(null);
   const canvas = useRef<HTMLCanvasElement>(null);
   const width = useWidth(wrapper, maxWidth);
@@ -118,6 +126,15 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
       return d ? [{ id: o.id, d, style: o.style, label: o.label }] : [];
     });
   }, [projected, outlines]);
+  // a closed line, not a polygon: the edges are great-circle arcs either way, and no winding rule can fill the sky
+  const tiles = useMemo(() => {
+    if (!projected) return [];
+    const path = geoPath(projected.projection);
+    return planTiles.flatMap((f) => {
+      const d = path({ type: "LineString", coordinates: [...f.outline, f.outline[0] ?? f.centre] });
+      return d ? [{ ...f, d, at: numbered ? projected.place(f.centre[0], f.centre[1]) : null }] : [];
+    });
+  }, [projected, planTiles, numbered]);
 
   const onMove = (e: React.MouseEvent<SVGSVGElement>) => {
     if (!projected) return;
@@ -160,6 +177,32 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
                   ),
                 )}
               </g>
+              {tiles.length ? (
+                <g data-testid="plan-footprints" fill="none" strokeWidth={1.4}>
+                  {tiles.map((t) => (
+                    <path key={t.key} d={t.d} stroke={rgbCss(t.colour)} strokeDasharray={t.dash || undefined} data-site={t.siteCode}>
+                      <title>{`${t.siteCode} pointing ${t.index}`}</title>
+                    </path>
+                  ))}
+                  {tiles.map((t) =>
+                    t.at ? (
+                      <text
+                        key={`n-${t.key}`}
+                        x={t.at[0]}
+                        y={t.at[1] + 3}
+                        textAnchor="middle"
+                        className="fill-fg font-mono text-[9px]"
+                        paintOrder="stroke"
+                        stroke="var(--c-surface)"
+                        strokeWidth={2.5}
+                        data-testid="footprint-number"
+                      >
+                        {t.index}
+                      </text>
+                    ) : null,
+                  )}
+                </g>
+              ) : null}
               {markers.map((m) => {
                 const at = projected?.place(m.raDeg, m.decDeg);
                 if (!at) return null;

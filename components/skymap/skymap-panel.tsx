@@ -11,7 +11,9 @@ import { formatInZone, isoUtc } from "@/lib/format/time";
 import { footprintOutline } from "@/lib/skymap/footprint";
 import { credibleRegionPoints } from "@/lib/skymap/region";
 import { useCandidateObservations } from "@/components/observations/use-observations";
+import { useCandidatePlans } from "@/components/plans/use-plans";
 import { ConeQuery } from "./cone-query";
+import { planFootprints, siteStyles } from "./footprints";
 import { DistanceFigures } from "./distance-figures";
 import { formatArea, formatBytes, formatDec, formatRa, formatShare } from "./format";
 import { SkymapLegend } from "./legend";
@@ -99,10 +101,22 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
   );
   const rows = useMemo(() => visibility.data?.rows ?? [], [visibility.data]);
 
-  const colours = useMemo(() => {
-    const codes = rows.map((r) => r.site.code).sort();
-    return new Map<string, Rgb>(codes.map((code, i) => [code, siteColours[i % siteColours.length] ?? WHITE]));
-  }, [rows]);
+  const plans = useCandidatePlans(candidateId);
+  const openPlans = useMemo(() => (plans.data ?? []).filter((p) => p.closedAt === null), [plans.data]);
+  // one colour and one line pattern per site, shared by the night bands and the planned tiles
+  const styles = useMemo(() => siteStyles([...rows.map((r) => r.site.code), ...openPlans.flatMap((p) => (p.site ? [p.site.code] : []))], siteColours), [rows, openPlans]);
+  const colours = useMemo(() => new Map<string, Rgb>([...styles].map(([code, style]) => [code, style.colour])), [styles]);
+  const planTiles = useMemo(() => planFootprints(openPlans, styles), [openPlans, styles]);
+  const plannedSites = useMemo(
+    () =>
+      [...new Set(openPlans.flatMap((p) => (p.site ? [p.site.code] : [])))].sort().map((code) => ({
+        code,
+        colour: styles.get(code)?.colour ?? WHITE,
+        dash: styles.get(code)?.dash ?? "",
+        count: planTiles.filter((f) => f.siteCode === code).length,
+      })),
+    [openPlans, styles, planTiles],
+  );
   const [hidden, setHidden] = useState<ReadonlySet<string>>(new Set());
   const bands = useMemo(
     () =>
@@ -157,7 +171,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
       {grid.data ? (
         <div className="space-y-4" data-testid="skymap-views">
           <div className="rounded-md bg-sunken p-2">
-            <SkyMap grid={grid.data} view={ALL_SKY} bands={bands} markers={markers} outlines={outlines} aspect={2} title="All sky (Mollweide, equatorial J2000)" />
+            <SkyMap grid={grid.data} view={ALL_SKY} bands={bands} markers={markers} outlines={outlines} planTiles={planTiles} aspect={2} title="All sky (Mollweide, equatorial J2000)" />
           </div>
           <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
             <div className="rounded-md bg-sunken p-2">
@@ -168,6 +182,8 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
                   bands={bands}
                   markers={markers}
                   outlines={outlines}
+                  planTiles={planTiles}
+                  numbered
                   aspect={1}
                   maxWidth={420}
                   title={`The 90 % region (equal-area, ${Math.round(zoom.kind === "zoom" ? 2 * zoom.radiusDeg : 0)}° across)`}
@@ -176,6 +192,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
             </div>
             <SkymapLegend
               observedCount={outlines.length}
+              plannedSites={plannedSites}
               onToggle={toggle}
               sites={(isNewest ? rows : []).map((r) => ({
                 code: r.site.code,

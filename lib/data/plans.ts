@@ -2,6 +2,7 @@ import { and, asc, desc, eq, inArray, isNull, ne, or, sql, type SQL } from "driz
 import type { Tx } from "@/db";
 import {
   observations,
+  instruments,
   planPointings,
   plans,
   siteObservers,
@@ -211,4 +212,18 @@ export async function taskPlanSummaries(tx: Tx, taskIds: string[]): Promise<Map<
     out.set(r.taskId, { planId: r.planId, pointings: Number(r.pointings), scheduled: Number(r.scheduled), done: Number(r.done), scheduledProbability: r.scheduledProbability });
   }
   return out;
+}
+
+/** Every instrument with its site's code, by site code then name: the planning form's choices. */
+export async function listPlanInstruments(tx: Tx): Promise<Array<{ id: string; name: string; footprint: Footprint; siteId: string; siteCode: string }>> {
+  return tx
+    .select({ id: instruments.id, name: instruments.name, footprint: instruments.footprint, siteId: instruments.siteId, siteCode: sites.code })
+    .from(instruments)
+    .innerJoin(sites, eq(sites.id, instruments.siteId))
+    .orderBy(asc(sites.code), asc(instruments.name));
+}
+
+/** The ids of the sites a person observes at. */
+export async function observerSiteIds(tx: Tx, userId: string): Promise<string[]> {
+  return (await tx.select({ siteId: siteObservers.siteId }).from(siteObservers).where(eq(siteObservers.userId, userId))).map((r) => r.siteId);
 }

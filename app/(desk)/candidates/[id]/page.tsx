@@ -14,6 +14,7 @@ import { SkymapSlot } from "@/components/candidate/skymap-slot";
 import { SourceClassPanel } from "@/components/candidate/source-class-panel";
 import { StageBadge } from "@/components/candidate/stage-badge";
 import { TasksPanel } from "@/components/candidate/tasks-panel";
+import { CandidatePlansPanel } from "@/components/plans/candidate-plans-panel";
 import { trackSeries } from "@/components/candidate/track-data";
 import { TrackPlot } from "@/components/candidate/track-plot";
 import { MergedNotice, TriggersPanel } from "@/components/candidate/triggers-panel";
@@ -28,6 +29,7 @@ import { listSiteOptions } from "@/lib/data/tasks";
 import { listNearbyCandidates } from "@/lib/data/triggers";
 import { formatInZone } from "@/lib/format/time";
 import type { Derived } from "@/lib/physics/derived-types";
+import { getCandidatePlans, getPlanInstrumentOptions } from "@/lib/services/read-plans";
 
 export const dynamic = "force-dynamic";
 
@@ -48,11 +50,14 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
   const detail = await readDetail(id);
   if (!detail) notFound();
   const canRegroup = hasRole(user, can.regroupTriggers) && detail.mergedIntoId === null;
-  const [audit, notes, sites, nearby] = await Promise.all([
+  const canPlanPointings = hasRole(user, can.planPointings);
+  const [audit, notes, sites, nearby, plans, planInstruments] = await Promise.all([
     listCandidateAudit(id),
     listNotes(id),
     listSiteOptions(),
     canRegroup ? listNearbyCandidates(id, detail.state.eventTime, mergeSpanMs) : Promise.resolve([]),
+    getCandidatePlans(id),
+    canPlanPointings ? getPlanInstrumentOptions(user) : Promise.resolve([]),
   ]);
   const people = await loadPeople(audit.map((e) => (typeof e.data?.ownerId === "string" ? e.data.ownerId : null)));
   // The stored derived JSON has the Derived shape (lib/physics); every block may be null, so it is read defensively.
@@ -129,6 +134,10 @@ export default async function CandidatePage({ params }: { params: Promise<{ id: 
             <TrackPlot series={series} />
           </Panel>
           <SkymapSlot candidateId={detail.id} revision={detail.revision} timeZone={tz} />
+          <Panel>
+            <PanelTitle>Pointing plans</PanelTitle>
+            <CandidatePlansPanel candidateId={detail.id} initialPlans={plans} instruments={planInstruments} canPlan={canPlanPointings && !withdrawn} timeZone={tz} />
+          </Panel>
           <CoveragePanel candidateId={detail.id} sites={sites} timeZone={tz} />
           <CounterpartsPanel candidateId={detail.id} canReport={hasRole(user, can.reportCounterparts)} timeZone={tz} />
         </div>
