@@ -64,6 +64,8 @@ export function describeAudit(e: AuditEntry, people: Map<string, PersonRef>, can
       return "Sky map uploaded";
     case "observation.recorded":
       return `Logged ${plural(Number(d.count ?? 0), "exposure", "exposures")}${d.via === "csv" ? " from a CSV file" : d.via === "tick" ? " (a planned pointing ticked)" : ""}`;
+    case "observation.withdrawn":
+      return `Took back ${plural(Number(d.count ?? 0), "exposure", "exposures")} (a planned pointing unticked)`;
     case "counterpart.reported":
       return `Reported a counterpart${d.name ? ` “${str(d.name)}”` : ""} at RA ${Number(d.raDeg).toFixed(3)}°, Dec ${Number(d.decDeg).toFixed(3)}°`;
     default:

@@ -29,8 +29,8 @@ export function keysForEvent(event: EventLike): QueryKey[] {
     if (event.candidateId) keys.push(queryKeys.notes(event.candidateId));
     return [...keys, ...candidate];
   }
-  if (event.kind === "observation.recorded") {
-    // A task's log grew: the candidate's coverage, its drawn footprints and the task cards.
+  if (event.kind === "observation.recorded" || event.kind === "observation.withdrawn") {
+    // A task's log changed: the candidate's coverage, its drawn footprints and the task cards.
     return event.candidateId
       ? [queryKeys.coverage(event.candidateId), queryKeys.observations(event.candidateId), queryKeys.tasks, ...candidate]
       : [queryKeys.tasks];

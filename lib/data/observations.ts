@@ -1,4 +1,4 @@
-import { asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
 import { candidates, followUpTasks, instruments, observations, siteObservers, skymaps, uploads, type Instrument, type NewObservation, type Observation } from "@/db/schema";
 
@@ -97,4 +97,21 @@ export async function newestSkymapFilesOf(candidateIds: readonly string[], tx?: 
   const newest = new Map<string, { skymapId: string; sha256: string }>();
   for (const r of rows) if (!newest.has(r.candidateId)) newest.set(r.candidateId, { skymapId: r.skymapId, sha256: r.sha256 });
   return newest;
+}
+
+/** Removes the exposures a tick recorded for one planned tile of a candidate; answers how many. */
+export async function deleteTickObservations(tx: Tx, tile: { candidateId: string; pointingIndex: number; raDeg: number; decDeg: number }): Promise<number> {
+  const gone = await tx
+    .delete(observations)
+    .where(
+      and(
+        eq(observations.candidateId, tile.candidateId),
+        eq(observations.source, "tick"),
+        eq(observations.pointingIndex, tile.pointingIndex),
+        eq(observations.raDeg, tile.raDeg),
+        eq(observations.decDeg, tile.decDeg),
+      ),
+    )
+    .returning({ id: observations.id });
+  return gone.length;
 }

@@ -24,6 +24,7 @@ export const eventKinds = {
   notificationFailed: "notification.failed", // data: { notificationId, channel, userId }
   pageFailing: "page.failing", // a page still retrying after repeated failures; data: { notificationId, channel, userId, attempts, error, escalatedStep }
   observationsRecorded: "observation.recorded", // data: { count, via: "api" | "csv" | "tick", siteIds }
+  observationsWithdrawn: "observation.withdrawn", // a tick taken back; data: { count, via: "tick", planId, pointingIndex }
   counterpartReported: "counterpart.reported", // data: { counterpartId, name, raDeg, decDeg }
   skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
   reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }

@@ -1,9 +1,17 @@
-import { getDb } from "@/db";
-import type { Footprint, Instrument, NewObservation, ObservationSource } from "@/db/schema";
+import { getDb, type Tx } from "@/db";
+import type { Footprint, Instrument, NewObservation, ObservationSource, Plan, PlanPointing } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import type { SessionUser } from "@/lib/auth/roles";
 import { appendEvent } from "@/lib/data/events";
-import { findInstrumentsByIds, instrumentsAtSite, insertObservations, readTaskForRecording, sitesObservedBy, type TaskForRecording } from "@/lib/data/observations";
+import {
+  deleteTickObservations,
+  findInstrumentsByIds,
+  instrumentsAtSite,
+  insertObservations,
+  readTaskForRecording,
+  sitesObservedBy,
+  type TaskForRecording,
+} from "@/lib/data/observations";
 import { eventKinds } from "@/lib/events/kinds";
 import { checkObservationRows, type ObservationRow, type RowProblem } from "@/lib/validations/observations";
 import { parseObservationCsv } from "@/lib/validations/observations-csv";
@@ -112,4 +120,67 @@ function noFootprintMessage(task: TaskForRecording, siteInstrumentCount: number)
   if (!task.siteId) return "the task names no site: give instrumentId or a footprint";
   if (siteInstrumentCount === 0) return "the task's site has no instrument: give a footprint";
   return `the task's site has ${siteInstrumentCount} instruments: name one (instrumentId) or give a footprint`;
+}
+
+/** A ticked planned pointing: its plan's instrument defaults and the tile's position. */
+export interface TickedTile {
+  candidateId: string;
+  taskId: string | null;
+  plan: Pick<Plan, "id" | "instrumentId" | "siteId" | "footprint" | "exposureS" | "filter">;
+  pointing: Pick<PlanPointing, "index" | "raDeg" | "decDeg">;
+}
+
+/**
+ * The exposure a tick stands for, inside the tick's transaction: at the planned position with the plan's footprint,
+ * exposure and filter (else the instrument's first) and the instrument's limiting magnitude, ending at the tick
+ * (a tick says the exposure is done). The tick's own rules decided who may; one audit event, via "tick".
+ */
+export async function recordTickedPointing(tx: Tx, actor: SessionUser, tile: TickedTile, now: Date): Promise<string> {
+  const { plan, pointing } = tile;
+  const [instrument] = plan.instrumentId ? await findInstrumentsByIds(tx, [plan.instrumentId]) : [];
+  const [id] = await insertObservations(tx, [
+    {
+      candidateId: tile.candidateId,
+      taskId: tile.taskId,
+      instrumentId: plan.instrumentId,
+      siteId: plan.siteId,
+      raDeg: pointing.raDeg,
+      decDeg: pointing.decDeg,
+      footprint: plan.footprint,
+      startTime: new Date(now.getTime() - plan.exposureS * 1000),
+      exposureS: plan.exposureS,
+      filter: plan.filter ?? instrument?.filters[0] ?? "unfiltered",
+      limitingMagnitude: instrument?.limitingMag ?? null,
+      pointingIndex: pointing.index,
+      source: "tick",
+      recordedById: actor.id,
+      createdAt: now,
+    },
+  ]);
+  if (!id) throw new Error("tick observation insert returned no id");
+  await appendEvent(tx, {
+    at: now,
+    kind: eventKinds.observationsRecorded,
+    actorId: actor.id,
+    candidateId: tile.candidateId,
+    taskId: tile.taskId,
+    data: { count: 1, via: "tick", siteIds: [plan.siteId], planId: plan.id, pointingIndex: pointing.index },
+  });
+  return id;
+}
+
+/** A tick taken back takes back the exposure it recorded (and audits that); a typed-in observation stays. */
+export async function withdrawTickedPointing(tx: Tx, actor: SessionUser, tile: TickedTile, now: Date): Promise<number> {
+  const removed = await deleteTickObservations(tx, { candidateId: tile.candidateId, pointingIndex: tile.pointing.index, raDeg: tile.pointing.raDeg, decDeg: tile.pointing.decDeg });
+  if (removed > 0) {
+    await appendEvent(tx, {
+      at: now,
+      kind: eventKinds.observationsWithdrawn,
+      actorId: actor.id,
+      candidateId: tile.candidateId,
+      taskId: tile.taskId,
+      data: { count: removed, via: "tick", planId: tile.plan.id, pointingIndex: tile.pointing.index },
+    });
+  }
+  return removed;
 }

@@ -6,12 +6,15 @@ import { readPointingFor, readPlan, setPointingDone } from "@/lib/data/plans";
 import { readTaskHolder } from "@/lib/data/tasks";
 import { eventKinds } from "@/lib/events/kinds";
 import { toPlanRecord, type PointingRecord } from "@/lib/plans/record";
+import { recordTickedPointing, withdrawTickedPointing } from "@/lib/services/record-observations";
 import type { PointingTick } from "@/lib/validations/plans";
 
 /**
  * Ticks a planned pointing done (or takes the tick back): who and when stored on the pointing, one audit event,
  * in one transaction. Observers tick at the plan's site or on a task they hold; coordinators anywhere (the route's
- * role list). A closed plan (replaced, or its task cancelled) is 409. Observations are recorded apart.
+ * role list). A closed plan (replaced, or its task cancelled) is 409. Ticking done also records the exposure (at
+ * the planned position with the plan's instrument defaults, lib/services/record-observations.ts); taking the tick
+ * back removes it, so coverage follows the ticks.
  */
 export async function tickPointing(actor: SessionUser, planId: string, pointingId: string, tick: PointingTick, now: Date): Promise<PointingRecord> {
   const db = await getDb();
@@ -34,6 +37,12 @@ export async function tickPointing(actor: SessionUser, planId: string, pointingI
         taskId: found.taskId,
         data: { planId, pointingId, index: found.pointing.index, done: tick.done },
       });
+      const stored = await readPlan(tx, planId);
+      if (stored) {
+        const tile = { candidateId: found.candidateId, taskId: found.taskId, plan: stored.plan, pointing: found.pointing };
+        if (tick.done) await recordTickedPointing(tx, actor, tile, now);
+        else await withdrawTickedPointing(tx, actor, tile, now);
+      }
     }
     const plan = await readPlan(tx, planId);
     const record = plan ? toPlanRecord(plan).pointings.find((p) => p.id === pointingId) : undefined;

@@ -27,6 +27,7 @@ describe("which queries a live event refreshes", () => {
   it("a recorded observation refreshes that candidate's coverage and the task cards; a counterpart its list", () => {
     expect(keysForEvent(event(eventKinds.observationsRecorded, "c3", "t2"))).toEqual([["coverage", "c3"], ["observations", "c3"], ["tasks"], ["candidate", "c3"]]);
     expect(keysForEvent(event(eventKinds.counterpartReported, "c3"))).toEqual([["counterparts", "c3"], ["candidate", "c3"]]);
+    expect(keysForEvent(event(eventKinds.observationsWithdrawn, "c3", "t2"))).toContainEqual(["coverage", "c3"]);
   });
 
   it("a new sky map recomputes coverage and counterpart ranks (both are read on the newest map)", () => {
