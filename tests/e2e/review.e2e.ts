@@ -35,8 +35,9 @@ export default async function reviewE2E(ctx: E2EContext): Promise<void> {
 
     // Acknowledgement deadline to 0.5 min: the table's deadline cell follows after the save.
     // The acknowledgement's deadline is counted from receipt: paging (1 min) + the acknowledgement step.
-    await setAcknowledgementDeadline(page, "0.5", "1 min 30 s");
-    await setAcknowledgementDeadline(page, "4", "5 min");
+    // (the board's warning may not come after the deadline: 1 min while the deadline is 1.5 min, then 3 min again)
+    await setAcknowledgementDeadline(page, "0.5", "1 min 30 s", "1");
+    await setAcknowledgementDeadline(page, "4", "5 min", "3");
     await page.screenshot({ path: `${ctx.artifactsDir}/review-coordinator.png`, fullPage: true });
 
     const csv = await page.request.get(`${ctx.baseUrl}/api/v1/review/export`);
@@ -84,8 +85,9 @@ async function listBehindBar(page: Page, externalId: string): Promise<void> {
   throw new Error(`no acknowledgement bar listed ${externalId}`);
 }
 
-async function setAcknowledgementDeadline(page: Page, minutes: string, shown: string): Promise<void> {
+async function setAcknowledgementDeadline(page: Page, minutes: string, shown: string, warnMinutes: string): Promise<void> {
   await page.getByRole("button", { name: "Deadlines" }).click();
+  await page.fill("#deadline-acknowledgeWarnMinutes", warnMinutes);
   await page.fill("#deadline-acknowledgeStepMinutes", minutes);
   await page.getByRole("button", { name: "Save deadlines" }).click();
   // The acknowledgement row's deadline cell (third row, first data cell) shows the new value once the page refreshes.
