@@ -84,3 +84,13 @@ export const cataloguePatchSchema = z
   .strict()
   .refine((b) => b.name !== undefined || b.isDefault !== undefined, { message: "give name or isDefault" });
 export type CataloguePatch = z.infer<typeof cataloguePatchSchema>;
+
+/** GET /api/v1/candidates/{id}/galaxies: which catalogue (the default if absent), how many, for which site. */
+export const galaxyRankQuerySchema = z.object({
+  catalogueId: z.string().min(1).max(200).optional(),
+  limit: z.coerce.number().int("limit must be a whole number").min(1, "limit must be at least 1").max(1000, "limit must be at most 1000").default(100),
+  siteId: z.string().min(1).max(200).optional(),
+  /** the greedy credible region whose galaxies are scored and summed */
+  level: z.coerce.number().finite().min(0.5, "level must be at least 0.5").max(0.999, "level must be at most 0.999").default(0.99),
+});
+export type GalaxyRankQuery = z.infer<typeof galaxyRankQuerySchema>;
