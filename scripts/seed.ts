@@ -16,7 +16,8 @@ export async function runSeed(): Promise<void> {
   await migrateDatabase(db);
   // The past week is fed through the fake feed's generator: loaded only when seeding, never in the `npm start` graph.
   const { seedPastCandidates } = await import("./demo/candidates");
-  const result = await seedDemo(db, { seedCandidates: seedPastCandidates });
+  const { seedDemoCatalogue } = await import("./demo/galaxies");
+  const result = await seedDemo(db, { seedCandidates: seedPastCandidates, seedCatalogue: seedDemoCatalogue });
   console.log(result.seeded ? `demo scenario seeded (${result.candidates} past candidates)` : "database already has users; demo seed skipped");
 }
 

@@ -16,7 +16,9 @@ export interface SkyMarker {
   raDeg: number;
   decDeg: number;
   label: string;
-  kind: "sun" | "moon" | "peak";
+  kind: "sun" | "moon" | "peak" | "galaxy";
+  /** galaxies: the mark's radius in pixels (by score) */
+  radius?: number;
 }
 
 export interface SkyMapProps {
@@ -203,10 +205,10 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
                   )}
                 </g>
               ) : null}
-              {markers.map((m) => {
+              {markers.map((m, i) => {
                 const at = projected?.place(m.raDeg, m.decDeg);
                 if (!at) return null;
-                return <Marker key={m.kind} x={at[0]} y={at[1]} marker={m} />;
+                return <Marker key={`${m.kind}-${i}`} x={at[0]} y={at[1]} marker={m} />;
               })}
             </svg>
           </>
@@ -223,6 +225,13 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
 }
 
 function Marker({ x, y, marker }: { x: number; y: number; marker: SkyMarker }) {
+  if (marker.kind === "galaxy") {
+    return (
+      <circle cx={x} cy={y} r={marker.radius ?? 3} className="fill-accent/40 stroke-accent" strokeWidth={1} data-testid="galaxy-mark">
+        <title>{marker.label}</title>
+      </circle>
+    );
+  }
   if (marker.kind === "peak") {
     return (
       <g transform={`translate(${x},${y})`} className="stroke-fg" strokeWidth={1.5}>

@@ -3,7 +3,7 @@
 import { useQueryClient } from "@tanstack/react-query";
 import { Map as MapIcon, TriangleAlert } from "lucide-react";
 import { useMemo, useState } from "react";
-import { Caution } from "@/components/candidate/caution";
+import { Caution, CAUTION_TEXT } from "@/components/candidate/caution";
 import { Select } from "@/components/ui/field";
 import { Panel, PanelTitle } from "@/components/ui/panel";
 import type { SkymapInfo } from "@/lib/data/skymaps";
@@ -16,6 +16,7 @@ import { ConeQuery } from "./cone-query";
 import { planFootprints, siteStyles } from "./footprints";
 import { DistanceFigures } from "./distance-figures";
 import { formatArea, formatBytes, formatDec, formatRa, formatShare } from "./format";
+import { GalaxyTargetsTable, useGalaxyTargets } from "./galaxy-targets";
 import { SkymapLegend } from "./legend";
 import type { SkyOutline } from "./outlines";
 import { zoomOn, type SkyView } from "./projection";
@@ -27,6 +28,8 @@ import { useCandidateSkymaps, useDisplayGrid, useSunMoonNow, useVisibility } fro
 import { VisibilityTable } from "./visibility-table";
 
 const ALL_SKY: SkyView = { kind: "all-sky" };
+/** Galaxies circled on the zoomed map. */
+const GALAXY_MARKS = 30;
 const WHITE: Rgb = [255, 255, 255];
 
 /** The candidate's sky localisation: numbers, all-sky and zoomed maps, site visibility, cone queries, uploads. */
@@ -134,6 +137,19 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
       else next.add(code);
       return next;
     });
+  const [galaxySiteId, setGalaxySiteId] = useState("");
+  const galaxies = useGalaxyTargets(candidateId, galaxySiteId, isNewest && Boolean(skymap.distance));
+  const galaxyMarks = useMemo<SkyMarker[]>(() => {
+    const top = (galaxies.data?.galaxies ?? []).slice(0, GALAXY_MARKS);
+    const best = top[0]?.normalizedScore ?? 0;
+    return top.map((g, i) => ({
+      raDeg: g.raDeg,
+      decDeg: g.decDeg,
+      kind: "galaxy" as const,
+      radius: best > 0 ? 2 + 6 * Math.sqrt(g.normalizedScore / best) : 2,
+      label: `#${i + 1} ${g.name}: ${formatShare(g.normalizedScore)} of the score, ${g.distanceMpc.toFixed(0)} Mpc`,
+    }));
+  }, [galaxies.data]);
   const zoom = useMemo(
     () => (grid.data ? zoomOn(skymap.peak, credibleRegionPoints(grid.data, { level: 0.9, maxPoints: 4096 })) : null),
     [grid.data, skymap.peak],
@@ -180,7 +196,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
                   grid={grid.data}
                   view={zoom}
                   bands={bands}
-                  markers={markers}
+                  markers={[...galaxyMarks, ...markers]}
                   outlines={outlines}
                   planTiles={planTiles}
                   numbered
@@ -219,6 +235,23 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
           largest share seen at one instant.
         </p>
       </section>
+      {isNewest && skymap.distance ? (
+        <section aria-labelledby="galaxies-title" className="space-y-2" data-testid="galaxy-targets">
+          <h3 id="galaxies-title" className="text-sm font-semibold">
+            Host galaxy candidates
+          </h3>
+          <GalaxyTargetsTable
+            query={galaxies}
+            sites={rows.map((r) => ({ id: r.site.id, code: r.site.code, name: r.site.name }))}
+            siteId={galaxySiteId}
+            onSiteChange={setGalaxySiteId}
+            timeZone={timeZone}
+          />
+          <p className="text-xs text-faint">
+            The {GALAXY_MARKS} best are circled on the zoomed map, sized by score. {CAUTION_TEXT}
+          </p>
+        </section>
+      ) : null}
       <section aria-labelledby="cone-title" className="space-y-2">
         <h3 id="cone-title" className="text-sm font-semibold">
           Probability in a cone

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { blob, index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import { createdAt, idColumn } from "./columns";
 import { users } from "./users";
 
@@ -51,3 +51,22 @@ export const galaxies = sqliteTable(
 );
 export type Galaxy = typeof galaxies.$inferSelect;
 export type NewGalaxy = typeof galaxies.$inferInsert;
+
+/**
+ * The ranking index: a catalogue's galaxies packed per index cell, so a credible region reads one row per cell and
+ * fragment instead of one per galaxy. `data` is `count` records of five little-endian float64s (galaxy id, raDeg,
+ * decDeg, distanceMpc, weight); a cell has one fragment per import flush (lib/galaxies/pack.ts).
+ */
+export const galaxyCells = sqliteTable(
+  "galaxy_cells",
+  {
+    id: integer("id").primaryKey(),
+    catalogueId: text("catalogue_id")
+      .notNull()
+      .references(() => catalogues.id, { onDelete: "cascade" }),
+    cell: integer("cell").notNull(),
+    count: integer("count").notNull(),
+    data: blob("data", { mode: "buffer" }).notNull(),
+  },
+  (t) => [index("galaxy_cells_catalogue_cell_idx").on(t.catalogueId, t.cell)],
+);

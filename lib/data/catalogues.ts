@@ -1,20 +1,14 @@
-import { and, count, desc, eq, sql } from "drizzle-orm";
-import type { Tx } from "@/db";
-import { catalogues, galaxies, type Catalogue, type NewGalaxy } from "@/db/schema";
+import { count, desc, eq, sql } from "drizzle-orm";
+import type { Database, Tx } from "@/db";
+import { catalogues, galaxies, type Catalogue } from "@/db/schema";
 
 /** Storage of galaxy catalogues: queries only; the services decide what a missing row means. */
 
-export async function insertImportingCatalogue(tx: Tx, values: { name: string; uploadedById: string; now: Date }): Promise<Catalogue> {
+export async function insertImportingCatalogue(tx: Tx, values: { name: string; uploadedById: string | null; now: Date }): Promise<Catalogue> {
   const [row] = await tx.insert(catalogues).values({ name: values.name, state: "importing", uploadedById: values.uploadedById, createdAt: values.now }).returning();
   if (!row) throw new Error("catalogue insert returned nothing");
   return row;
 }
-
-/** One batch of galaxies (at most GALAXY_BATCH_ROWS: 7 bound values each stay under SQLite's 32 766). */
-export async function insertGalaxies(tx: Tx, rows: NewGalaxy[]): Promise<void> {
-  if (rows.length) await tx.insert(galaxies).values(rows);
-}
-export const GALAXY_BATCH_ROWS = 2_000;
 
 export async function setCatalogueRowCount(tx: Tx, id: string, rowCount: number): Promise<void> {
   await tx.update(catalogues).set({ rowCount }).where(eq(catalogues.id, id));
@@ -64,7 +58,76 @@ export async function countGalaxies(tx: Tx, catalogueId: string): Promise<number
   return row?.n ?? 0;
 }
 
-export interface GalaxyRow {
+/** Galaxies of one import batch, as parallel arrays. */
+export interface GalaxyBatch {
+  cell: number[];
+  name: string[];
+  raDeg: number[];
+  decDeg: number[];
+  distanceMpc: number[];
+  weight: number[];
+}
+
+/** Rows per batch: 8 bound values each stay under SQLite's 32 766 variables. */
+export const GALAXY_BATCH_ROWS = 2_000;
+const PACK_BATCH_ROWS = 500;
+
+/**
+ * Appends one batch in its own write transaction through the libSQL client (a multi-row INSERT: the query builder
+ * costs more than SQLite for millions of rows). Ids are taken as a block after the largest, inside the
+ * transaction, so the caller knows them for the ranking packs. Returns the first id; the catalogue's row count
+ * becomes `rowCount`.
+ */
+export async function appendGalaxies(db: Database, catalogueId: string, batch: GalaxyBatch, rowCount: number): Promise<number> {
+  const n = batch.name.length;
+  const tx = await db.$client.transaction("write");
+  try {
+    const top = await tx.execute("SELECT coalesce(max(id), 0) AS top FROM galaxies");
+    const first = Number(top.rows[0]?.top ?? 0) + 1;
+    const args: Array<string | number> = [];
+    for (let k = 0; k < n; k++) {
+      args.push(first + k, catalogueId, batch.cell[k] ?? 0, batch.name[k] ?? "", batch.raDeg[k] ?? 0, batch.decDeg[k] ?? 0, batch.distanceMpc[k] ?? 0, batch.weight[k] ?? 0);
+    }
+    const values = Array.from({ length: n }, () => "(?,?,?,?,?,?,?,?)").join(",");
+    await tx.execute({ sql: `INSERT INTO galaxies (id, catalogue_id, cell, name, ra_deg, dec_deg, distance_mpc, weight) VALUES ${values}`, args });
+    await tx.execute({ sql: "UPDATE catalogues SET row_count = ? WHERE id = ?", args: [rowCount, catalogueId] });
+    await tx.commit();
+    return first;
+  } finally {
+    tx.close();
+  }
+}
+
+/** Writes ranking packs (one row per cell fragment) in one write transaction. */
+export async function insertGalaxyPacks(db: Database, catalogueId: string, packs: ReadonlyArray<{ cell: number; count: number; data: Uint8Array }>): Promise<void> {
+  if (!packs.length) return;
+  const tx = await db.$client.transaction("write");
+  try {
+    for (let at = 0; at < packs.length; at += PACK_BATCH_ROWS) {
+      const part = packs.slice(at, at + PACK_BATCH_ROWS);
+      await tx.execute({
+        sql: `INSERT INTO galaxy_cells (catalogue_id, cell, count, data) VALUES ${part.map(() => "(?,?,?,?)").join(",")}`,
+        args: part.flatMap((p) => [catalogueId, p.cell, p.count, p.data]),
+      });
+    }
+    await tx.commit();
+  } finally {
+    tx.close();
+  }
+}
+
+/** The ranking packs of a catalogue in the given index cells: one index seek per cell, a few rows each. */
+export async function packsInCells(db: Database, catalogueId: string, cells: readonly number[]): Promise<Array<{ count: number; data: Uint8Array }>> {
+  if (!cells.length) return [];
+  const result = await db.$client.execute({
+    sql: "SELECT count, data FROM galaxy_cells WHERE catalogue_id = ? AND cell IN (SELECT value FROM json_each(?)) ORDER BY cell, id",
+    args: [catalogueId, JSON.stringify(cells)],
+  });
+  return result.rows.map((row) => ({ count: Number(row.count), data: new Uint8Array(row.data as ArrayBuffer) }));
+}
+
+export interface GalaxyRecord {
+  id: number;
   name: string;
   raDeg: number;
   decDeg: number;
@@ -72,11 +135,12 @@ export interface GalaxyRow {
   weight: number;
 }
 
-/** The galaxies of a catalogue in the given index cells (one seek per cell on the (catalogue, cell) index). */
-export async function galaxiesInCells(tx: Tx, catalogueId: string, cells: readonly number[]): Promise<GalaxyRow[]> {
-  if (!cells.length) return [];
-  return tx
-    .select({ name: galaxies.name, raDeg: galaxies.raDeg, decDeg: galaxies.decDeg, distanceMpc: galaxies.distanceMpc, weight: galaxies.weight })
+/** Galaxies by id (the few a ranking keeps), as stored. */
+export async function galaxiesById(tx: Tx, ids: readonly number[]): Promise<Map<number, GalaxyRecord>> {
+  if (!ids.length) return new Map();
+  const rows = await tx
+    .select({ id: galaxies.id, name: galaxies.name, raDeg: galaxies.raDeg, decDeg: galaxies.decDeg, distanceMpc: galaxies.distanceMpc, weight: galaxies.weight })
     .from(galaxies)
-    .where(and(eq(galaxies.catalogueId, catalogueId), sql`${galaxies.cell} IN (SELECT value FROM json_each(${JSON.stringify(cells)}))`));
+    .where(sql`${galaxies.id} IN (SELECT value FROM json_each(${JSON.stringify(ids)}))`);
+  return new Map(rows.map((r) => [r.id, r]));
 }

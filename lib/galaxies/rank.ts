@@ -1,9 +1,10 @@
 import { GALAXY_CELL_ORDER } from "@/db/schema/galaxies";
 import { hasAnsatz } from "@/lib/skymap/distance";
 import { pixelAreaSr, POW4, ringToNest } from "@/lib/skymap/healpix";
-import { pixelLocator } from "@/lib/skymap/pixel-at";
+import { fineIndexLocator } from "@/lib/skymap/pixel-at";
 import { credibleDensityThreshold } from "@/lib/skymap/region-threshold";
 import type { SkymapMap } from "@/lib/skymap/types";
+import type { GalaxyColumns } from "./pack";
 
 /**
  * Galaxy ranking in a 3D sky map (pure). The score of a galaxy at distance r in pixel n is
@@ -12,15 +13,11 @@ import type { SkymapMap } from "@/lib/skymap/types";
  * with ρ the probability per steradian of the pixel. A pixel without distance information scores 0.
  */
 
-export interface CatalogueGalaxy {
-  name: string;
-  raDeg: number;
-  decDeg: number;
+export interface RankedGalaxy {
+  /** the galaxy's id in the catalogue (its row in `galaxies`) */
+  id: number;
   distanceMpc: number;
   weight: number;
-}
-
-export interface RankedGalaxy extends CatalogueGalaxy {
   score: number;
   /** score over the sum of the scores of every galaxy considered */
   normalizedScore: number;
@@ -35,19 +32,11 @@ export interface Ranking {
   galaxies: RankedGalaxy[];
 }
 
-/** Probability per steradian of every pixel (flat maps: probability over the equal pixel area). */
-function densityPerSr(map: SkymapMap): Float64Array {
-  if (map.layout === "multiorder") return map.densityPerSr;
-  const area = pixelAreaSr(map.order);
-  return map.probability.map((p) => p / area);
-}
-
 /**
  * The catalogue's index cells (NESTED at GALAXY_CELL_ORDER) that touch the greedy credible region at `level`:
  * each region pixel gives the cell holding it (finer pixels) or every cell inside it (coarser pixels).
  */
-export function regionCells(map: SkymapMap, level: number): number[] {
-  const threshold = credibleDensityThreshold(map, level);
+export function regionCells(map: SkymapMap, level: number, threshold = credibleDensityThreshold(map, level)): number[] {
   const density = map.layout === "multiorder" ? map.densityPerSr : map.probability;
   const cells = new Uint8Array(12 * POW4[GALAXY_CELL_ORDER]!);
   for (let i = 0; i < density.length; i++) {
@@ -75,21 +64,25 @@ export function regionCells(map: SkymapMap, level: number): number[] {
 export interface ScoreOptions {
   /** only galaxies in pixels of the greedy credible region at this level are scored (others get −1); none: all */
   level?: number;
+  /** credibleDensityThreshold(map, level), when the caller has it already */
+  threshold?: number;
 }
 
 /** The score of each galaxy (see the top of the file), or −1 for one outside the region. The map must be 3D. */
-export function galaxyScores(map: SkymapMap, galaxies: readonly CatalogueGalaxy[], options: ScoreOptions = {}): Float64Array {
+export function galaxyScores(map: SkymapMap, galaxies: GalaxyColumns, options: ScoreOptions = {}): Float64Array {
   const layers = map.distance;
   if (!layers) throw new Error("galaxyScores needs a map with distance columns");
-  const rho = densityPerSr(map);
-  const rank = map.layout === "multiorder" ? map.densityPerSr : map.probability;
-  const threshold = options.level === undefined ? -Infinity : credibleDensityThreshold(map, options.level);
-  const locate = pixelLocator(map);
-  const out = new Float64Array(galaxies.length);
+  // ρ per steradian: multi-order maps carry it; flat maps are probability over the one pixel area
+  const multi = map.layout === "multiorder";
+  const rank = multi ? map.densityPerSr : map.probability;
+  const perSr = multi ? 1 : 1 / pixelAreaSr(map.order);
+  const threshold = options.threshold ?? (options.level === undefined ? -Infinity : credibleDensityThreshold(map, options.level));
+  const locate = fineIndexLocator(map);
+  const { fine, distanceMpc, weight } = galaxies;
+  const out = new Float64Array(galaxies.count);
   const invSqrt2Pi = 1 / Math.sqrt(2 * Math.PI);
-  for (let k = 0; k < galaxies.length; k++) {
-    const g = galaxies[k]!;
-    const i = locate(g.raDeg, g.decDeg);
+  for (let k = 0; k < galaxies.count; k++) {
+    const i = locate(fine[k] ?? 0);
     if (i < 0 || !((rank[i] ?? 0) >= threshold)) {
       out[k] = -1;
       continue;
@@ -98,18 +91,18 @@ export function galaxyScores(map: SkymapMap, galaxies: readonly CatalogueGalaxy[
     const sigma = layers.sigmaMpc[i] ?? 0;
     const norm = layers.normPerMpc2[i] ?? 0;
     if (!hasAnsatz(mu, sigma, norm)) continue;
-    const u = (g.distanceMpc - mu) / sigma;
-    out[k] = (rho[i] ?? 0) * norm * (Math.exp(-0.5 * u * u) * invSqrt2Pi / sigma) * g.weight;
+    const u = ((distanceMpc[k] ?? 0) - mu) / sigma;
+    out[k] = (rank[i] ?? 0) * perSr * norm * (Math.exp(-0.5 * u * u) * invSqrt2Pi / sigma) * (weight[k] ?? 0);
   }
   return out;
 }
 
 /**
- * The `limit` best galaxies of those inside the credible region, by score (ties: catalogue order), with their
+ * The `limit` best galaxies of those inside the credible region, by score (ties: column order), with their
  * share of the summed score and the running total of those shares.
  */
-export function rankGalaxies(map: SkymapMap, galaxies: readonly CatalogueGalaxy[], options: { level: number; limit: number }): Ranking {
-  const scores = galaxyScores(map, galaxies, { level: options.level });
+export function rankGalaxies(map: SkymapMap, galaxies: GalaxyColumns, options: { level: number; limit: number; threshold?: number }): Ranking {
+  const scores = galaxyScores(map, galaxies, options);
   let considered = 0;
   let total = 0;
   for (const s of scores) {
@@ -123,8 +116,8 @@ export function rankGalaxies(map: SkymapMap, galaxies: readonly CatalogueGalaxy[
     const score = scores[k] ?? 0;
     const normalizedScore = total > 0 ? score / total : 0;
     running += normalizedScore;
-    const g = galaxies[k]!;
-    return { name: g.name, raDeg: g.raDeg, decDeg: g.decDeg, distanceMpc: g.distanceMpc, weight: g.weight, score, normalizedScore, cumulativeScore: Math.min(1, running) };
+    const { id, distanceMpc, weight } = galaxies;
+    return { id: id[k] ?? 0, distanceMpc: distanceMpc[k] ?? 0, weight: weight[k] ?? 0, score, normalizedScore, cumulativeScore: Math.min(1, running) };
   });
   return { considered, totalScore: total, galaxies: ranked };
 }

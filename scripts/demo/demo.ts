@@ -8,6 +8,8 @@ export interface SeedOptions {
   now?: Date;
   /** feeds past candidates through the real ingest path when given */
   seedCandidates?: (db: Database, now: Date) => Promise<number>;
+  /** imports the fictional galaxy catalogue when given */
+  seedCatalogue?: (now: Date) => Promise<unknown>;
 }
 
 /** Seeds the demo scenario into an empty database; does nothing when any user exists. Never in production unless SEED_DEMO=1. */
@@ -50,6 +52,7 @@ export async function seedDemo(db: Database, options: SeedOptions = {}): Promise
   }
 
   const candidates = options.seedCandidates ? await options.seedCandidates(db, now) : 0;
+  if (options.seedCatalogue) await options.seedCatalogue(now);
   return { seeded: true, candidates };
 }
 

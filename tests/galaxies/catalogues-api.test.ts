@@ -2,8 +2,9 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { count, eq } from "drizzle-orm";
 import { NextRequest } from "next/server";
 import { getDb } from "@/db";
-import { catalogues, events, galaxies } from "@/db/schema";
+import { catalogues, events, galaxies, galaxyCells } from "@/db/schema";
 import { eventKinds } from "@/lib/events/kinds";
+import { unpack } from "@/lib/galaxies/pack";
 import { importCatalogue } from "@/lib/services/import-catalogue";
 import * as listRoute from "@/app/api/v1/catalogues/route";
 import * as oneRoute from "@/app/api/v1/catalogues/[id]/route";
@@ -46,7 +47,8 @@ async function stored() {
   const db = await getDb();
   const [c] = await db.select({ n: count() }).from(catalogues);
   const [g] = await db.select({ n: count() }).from(galaxies);
-  return { catalogues: c?.n ?? 0, galaxies: g?.n ?? 0 };
+  const [p] = await db.select({ n: count() }).from(galaxyCells);
+  return { catalogues: c?.n ?? 0, galaxies: g?.n ?? 0, packs: p?.n ?? 0 };
 }
 
 const good = ["name,raDeg,decDeg,distanceMpc,weight", "Fict A,10.5,-20.25,120,2.5", '"Fict, B ""dwarf""",0.25,0.1,45.5,', "Fict C,359.9,89.5,300,0.75", ""].join("\r\n");
@@ -64,6 +66,11 @@ describe("POST /api/v1/catalogues", () => {
     // equatorial base pixel 4 (ra −45°…45°), (359.9°, 89.5°) in north polar base pixel 3 (ra 270°…360°).
     expect(Math.floor((rows[1]?.cell ?? 0) / 4096)).toBe(4);
     expect(Math.floor((rows[2]?.cell ?? 0) / 4096)).toBe(3);
+    // the ranking packs hold each galaxy once, under its own cell
+    const packs = await db.select().from(galaxyCells).where(eq(galaxyCells.catalogueId, String(res.json.id)));
+    const packed = unpack(packs.map((p) => ({ count: p.count, data: new Uint8Array(p.data) })));
+    expect([...packed.id].sort((a, b) => a - b)).toEqual(rows.map((r) => r.id));
+    for (const p of packs) expect(rows.filter((r) => r.cell === p.cell)).toHaveLength(p.count);
     const listed = await call(listRoute.GET, { caller: callers.observer });
     expect(listed.json.catalogues).toEqual([expect.objectContaining({ id: res.json.id, state: "ready", isDefault: true, rows: 3 })]);
   });
@@ -104,7 +111,7 @@ describe("POST /api/v1/catalogues", () => {
     expect(res.status).toBe(422);
     expect(res.json).toMatchObject({ row: 4321, column: "decDeg" });
     expect(res.json.error).toContain("row 4321 (line 4322), column decDeg");
-    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0 });
+    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0, packs: 0 });
   });
 
   const refusals: Array<[string, number, string, { row?: number; column?: string }]> = [
@@ -126,7 +133,7 @@ describe("POST /api/v1/catalogues", () => {
     const res = await upload(csv);
     expect(res.status).toBe(status);
     expect(res.json).toMatchObject(where);
-    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0 });
+    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0, packs: 0 });
   });
 
   it("bytes that are not UTF-8 → 422 naming the line", async () => {
@@ -134,7 +141,7 @@ describe("POST /api/v1/catalogues", () => {
     const res = await upload(bytes);
     expect(res.status).toBe(422);
     expect(res.json).toMatchObject({ line: 3 });
-    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0 });
+    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0, packs: 0 });
   });
 
   it("not multipart → 415; no file, two files or a bad name → 422; nothing kept", async () => {
@@ -149,10 +156,10 @@ describe("POST /api/v1/catalogues", () => {
     const badName = await upload(good, { name: "x".repeat(101) });
     expect(badName.status).toBe(422);
     expect(badName.json.issues).toEqual([expect.objectContaining({ path: "name" })]);
-    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0 });
+    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0, packs: 0 });
   });
 
-  it("a file over the byte limit or the row limit → 413, nothing kept", async () => {
+  it("a file over the byte limit or the row limit → 413; a bad row after packs were written → 422; nothing kept", async () => {
     const many = ["name,raDeg,decDeg,distanceMpc", ...Array.from({ length: 30 }, (_, i) => `G${i},1,2,3`)].join("\n");
     const request = async () => {
       const { body, contentType } = await multipart([{ field: "file", text: many, filename: "g.csv" }]);
@@ -160,7 +167,13 @@ describe("POST /api/v1/catalogues", () => {
     };
     await expect(importCatalogue(callers.coordinator.user, await request(), { now: new Date(0), maxFileBytes: 100 })).rejects.toMatchObject({ status: 413 });
     await expect(importCatalogue(callers.coordinator.user, await request(), { now: new Date(0), maxRows: 20 })).rejects.toMatchObject({ status: 413, details: { row: 21 } });
-    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0 });
+    // after galaxies and ranking packs were written (packs every 10 rows, batches of 2000 rows: a bad row 25)
+    const lines = ["name,raDeg,decDeg,distanceMpc", ...Array.from({ length: 2400 }, (_, i) => `G${i},${i % 360},2,3`)];
+    lines[2300] = "bad,1,2,-3";
+    const { body, contentType } = await multipart([{ field: "file", text: lines.join("\n"), filename: "g.csv" }]);
+    const late = new NextRequest("http://localhost/api/v1/catalogues", { method: "POST", body, headers: { "content-type": contentType } });
+    await expect(importCatalogue(callers.coordinator.user, late, { now: new Date(0), packFlushRows: 10 })).rejects.toMatchObject({ status: 422, details: { row: 2300, column: "distanceMpc" } });
+    expect(await stored()).toEqual({ catalogues: 0, galaxies: 0, packs: 0 });
   });
 });
 
@@ -199,7 +212,7 @@ describe("default, rename and delete", () => {
     expect(removed.json).toEqual({ deleted: true, newDefaultId: second });
     const db = await getDb();
     expect((await db.select({ n: count() }).from(galaxies).where(eq(galaxies.catalogueId, third)))[0]?.n).toBe(0);
-    expect((await stored()).galaxies).toBe(6);
+    expect(await stored()).toMatchObject({ galaxies: 6 });
     expect((await call(oneRoute.GET, { caller: coordinator, params: { id: third } })).status).toBe(404);
     expect((await call(oneRoute.GET, { caller: coordinator, params: { id: first } })).json.catalogue).toMatchObject({ isDefault: false });
 

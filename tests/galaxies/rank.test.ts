@@ -1,6 +1,8 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { galaxyScores, rankGalaxies, regionCells, topIndices, type CatalogueGalaxy } from "@/lib/galaxies/rank";
+import { toColumns, unpack, CellPacker } from "@/lib/galaxies/pack";
+import { cellOfFine, fineNestedIndex, galaxyCell } from "@/lib/galaxies/cell";
+import { galaxyScores, rankGalaxies, regionCells, topIndices } from "@/lib/galaxies/rank";
 import { analyseSkymap } from "@/lib/skymap";
 
 // References: tests/fixtures/scripts/galaxies_make_fixtures.py (scores of every galaxy, numpy) and
@@ -14,7 +16,7 @@ const region = JSON.parse(readFileSync(new URL("rank-reference.json", dir), "utf
   Record<string, { cells: number[]; considered: number; totalScore: number; top: Top[] }>
 >;
 
-const catalogue: CatalogueGalaxy[] = readFileSync(new URL("catalogue.csv", dir), "utf8")
+const rows = readFileSync(new URL("catalogue.csv", dir), "utf8")
   .trim()
   .split("\n")
   .slice(1)
@@ -22,6 +24,8 @@ const catalogue: CatalogueGalaxy[] = readFileSync(new URL("catalogue.csv", dir),
     const [name = "", ra, dec, dist, weight] = line.split(",");
     return { name, raDeg: Number(ra), decDeg: Number(dec), distanceMpc: Number(dist), weight: Number(weight) };
   });
+const catalogue = toColumns(rows);
+const nameOf = (id: number) => rows[id]?.name;
 
 function map(file: string) {
   const result = analyseSkymap(new Uint8Array(readFileSync(new URL(file, dir))));
@@ -37,7 +41,7 @@ describe.each(["flat", "multiorder"] as const)("%s 3D map against numpy", (kind)
     const ref = all[kind].scores;
     expect(rel(scores.reduce((a, b) => a + b, 0), ref.total)).toBeLessThan(1e-9);
     const top = topIndices(scores, 200);
-    expect(top.map((k) => catalogue[k]?.name)).toEqual(ref.top.map((t) => t.name));
+    expect(top.map((k) => rows[k]?.name)).toEqual(ref.top.map((t) => t.name));
     for (const [i, k] of top.entries()) expect(rel(scores[k] ?? 0, ref.top[i]?.score ?? 0)).toBeLessThan(1e-9);
   });
 
@@ -47,7 +51,7 @@ describe.each(["flat", "multiorder"] as const)("%s 3D map against numpy", (kind)
     const ranking = rankGalaxies(maps[kind], catalogue, { level: Number(level), limit: 25 });
     expect(ranking.considered).toBe(ref.considered);
     expect(rel(ranking.totalScore, ref.totalScore)).toBeLessThan(1e-9);
-    expect(ranking.galaxies.map((g) => g.name)).toEqual(ref.top.map((t) => t.name));
+    expect(ranking.galaxies.map((g) => nameOf(g.id))).toEqual(ref.top.map((t) => t.name));
     for (const [i, g] of ranking.galaxies.entries()) {
       expect(rel(g.normalizedScore, ref.top[i]?.normalizedScore ?? 0)).toBeLessThan(1e-9);
       expect(rel(g.cumulativeScore, ref.top[i]?.cumulativeScore ?? 0)).toBeLessThan(1e-9);
@@ -61,5 +65,25 @@ describe("topIndices", () => {
     expect(topIndices(scores, 4)).toEqual([4, 2, 6, 0]);
     expect(topIndices(scores, 100)).toEqual([4, 2, 6, 0, 3, 5]);
     expect(topIndices(scores, 0)).toEqual([]);
+  });
+});
+
+describe("cell packs", () => {
+  it("round-trip every galaxy and its id, grouped by cell, and rank the same as the plain columns", () => {
+    const packer = new CellPacker();
+    rows.forEach((g, id) => packer.add(galaxyCell(g.raDeg, g.decDeg), id, fineNestedIndex(g.raDeg, g.decDeg), g.distanceMpc, g.weight));
+    const packs = packer.drain();
+    expect(packer.size).toBe(0);
+    expect(packs.reduce((n, p) => n + p.count, 0)).toBe(rows.length);
+    expect(new Set(packs.map((p) => p.cell)).size).toBe(packs.length);
+    const back = unpack(packs);
+    const order = Array.from(back.id).map((id, k) => ({ id, k }));
+    for (const { id, k } of order) {
+      const g = rows[id]!;
+      expect([back.fine[k], back.distanceMpc[k], back.weight[k]]).toEqual([fineNestedIndex(g.raDeg, g.decDeg), g.distanceMpc, g.weight]);
+      expect(cellOfFine(back.fine[k] ?? 0)).toBe(galaxyCell(g.raDeg, g.decDeg));
+    }
+    const fromPacks = rankGalaxies(maps.flat, back, { level: 0.9, limit: 25 });
+    expect(fromPacks.galaxies.map((g) => nameOf(g.id))).toEqual(region.flat["0.9"]!.top.map((t) => t.name));
   });
 });
