@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { galaxyCell } from "@/lib/galaxies/cell";
 import { toColumns } from "@/lib/galaxies/pack";
 import { rankGalaxies } from "@/lib/galaxies/rank";
-import { listCatalogueRecords } from "@/lib/galaxies/list-catalogues";
+import { listCatalogueRecords } from "@/lib/services/list-catalogues";
 import { importCatalogueCsv } from "@/lib/services/import-catalogue";
 import { analyseSkymap } from "@/lib/skymap";
 import { parseCatalogueHeader, parseCatalogueRow, type CatalogueRow } from "@/lib/validations/catalogues";

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { listCatalogueRecords } from "@/lib/galaxies/list-catalogues";
+import { listCatalogueRecords } from "@/lib/services/list-catalogues";
 import { importCatalogue } from "@/lib/services/import-catalogue";
 
 /** Multipart upload: the CSV in field `file`, an optional `name`; streamed, so no body cap here (the service's limits apply). */

@@ -1,6 +1,6 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { getCatalogueRecord } from "@/lib/galaxies/list-catalogues";
+import { getCatalogueRecord } from "@/lib/services/list-catalogues";
 import { deleteCatalogue } from "@/lib/services/delete-catalogue";
 import { updateCatalogue } from "@/lib/services/update-catalogue";
 import { cataloguePatchSchema } from "@/lib/validations/catalogues";

@@ -1,7 +1,7 @@
 import { getDb } from "@/db";
 import { notFound } from "@/lib/api/errors";
 import { findCatalogue, listCatalogues } from "@/lib/data/catalogues";
-import { toCatalogueRecord, type CatalogueRecord } from "./catalogue-record";
+import { toCatalogueRecord, type CatalogueRecord } from "@/lib/galaxies/catalogue-record";
 
 export async function listCatalogueRecords(): Promise<CatalogueRecord[]> {
   return (await listCatalogues(await getDb())).map(toCatalogueRecord);
