@@ -16,7 +16,7 @@ export interface SkyMarker {
   raDeg: number;
   decDeg: number;
   label: string;
-  kind: "sun" | "moon" | "peak" | "galaxy";
+  kind: "sun" | "moon" | "peak" | "galaxy" | "pick";
   /** galaxies: the mark's radius in pixels (by score) */
   radius?: number;
 }
@@ -36,6 +36,8 @@ export interface SkyMapProps {
   planTiles?: ReadonlyArray<SkyFootprint>;
   /** Write each planned tile's number at its centre (the zoomed view). */
   numbered?: boolean;
+  /** called with the sky position under a click (the zoomed map asks the distance there) */
+  onPick?: (raDeg: number, decDeg: number) => void;
 }
 
 const NO_TILES: ReadonlyArray<SkyFootprint> = [];
@@ -72,7 +74,7 @@ function useWidth(ref: React.RefObject<HTMLElement | null>, maxWidth: number): n
 }
 
 /** One sky view: probability raster and contours on a canvas, grid, labels and markers in SVG on top. */
-export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH, outlines = [], planTiles = NO_TILES, numbered = false }: SkyMapProps) {
+export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = MAX_RASTER_WIDTH, outlines = [], planTiles = NO_TILES, numbered = false, onPick }: SkyMapProps) {
   const wrapper = useRef<HTMLDivElement>(null);
   const canvas = useRef<HTMLCanvasElement>(null);
   const width = useWidth(wrapper, maxWidth);
@@ -144,6 +146,13 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
     setHover(projected.skyAt(e.clientX - box.left, e.clientY - box.top));
   };
 
+  const onClick = (e: React.MouseEvent<SVGSVGElement>) => {
+    if (!projected || !onPick) return;
+    const box = e.currentTarget.getBoundingClientRect();
+    const at = projected.skyAt(e.clientX - box.left, e.clientY - box.top);
+    if (at) onPick(at[0], at[1]);
+  };
+
   return (
     <figure className="space-y-1">
       <div ref={wrapper} className="relative w-full" style={{ height: height || undefined }}>
@@ -158,6 +167,8 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
               aria-label={title}
               onMouseMove={onMove}
               onMouseLeave={() => setHover(null)}
+              onClick={onPick ? onClick : undefined}
+              style={onPick ? { cursor: "crosshair" } : undefined}
             >
               <path d={overlay?.outline} fill="none" className="stroke-line-strong" strokeWidth={1} />
               <path d={overlay?.grid} fill="none" className="stroke-faint" strokeOpacity={0.35} strokeWidth={0.6} />
@@ -225,6 +236,15 @@ export function SkyMap({ grid, view, bands, markers, aspect, title, maxWidth = M
 }
 
 function Marker({ x, y, marker }: { x: number; y: number; marker: SkyMarker }) {
+  if (marker.kind === "pick") {
+    return (
+      <g transform={`translate(${x},${y})`} className="stroke-accent" strokeWidth={2}>
+        <line x1={-5} x2={5} y1={-5} y2={5} />
+        <line x1={-5} x2={5} y1={5} y2={-5} />
+        <title>{marker.label}</title>
+      </g>
+    );
+  }
   if (marker.kind === "galaxy") {
     return (
       <circle cx={x} cy={y} r={marker.radius ?? 3} className="fill-accent/40 stroke-accent" strokeWidth={1} data-testid="galaxy-mark">

@@ -17,6 +17,7 @@ import { planFootprints, siteStyles } from "./footprints";
 import { DistanceFigures } from "./distance-figures";
 import { formatArea, formatBytes, formatDec, formatRa, formatShare } from "./format";
 import { GalaxyTargetsTable, useGalaxyTargets } from "./galaxy-targets";
+import { PickedDistance, type PickedPosition } from "./picked-distance";
 import { SkymapLegend } from "./legend";
 import type { SkyOutline } from "./outlines";
 import { zoomOn, type SkyView } from "./projection";
@@ -138,6 +139,9 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
       return next;
     });
   const [galaxySiteId, setGalaxySiteId] = useState("");
+  const [picked, setPicked] = useState<PickedPosition | null>(null);
+  const pick = (raDeg: number, decDeg: number) => setPicked({ raDeg: ((raDeg % 360) + 360) % 360, decDeg: Math.max(-90, Math.min(90, decDeg)) });
+  const pickMark = useMemo<SkyMarker[]>(() => (picked ? [{ ...picked, kind: "pick", label: "Position picked for the distance" }] : []), [picked]);
   const galaxies = useGalaxyTargets(candidateId, galaxySiteId, isNewest && Boolean(skymap.distance));
   const galaxyMarks = useMemo<SkyMarker[]>(() => {
     const top = (galaxies.data?.galaxies ?? []).slice(0, GALAXY_MARKS);
@@ -196,7 +200,8 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
                   grid={grid.data}
                   view={zoom}
                   bands={bands}
-                  markers={[...galaxyMarks, ...markers]}
+                  markers={[...galaxyMarks, ...markers, ...pickMark]}
+                  onPick={skymap.distance ? pick : undefined}
                   outlines={outlines}
                   planTiles={planTiles}
                   numbered
@@ -205,6 +210,7 @@ function SkymapDetails({ skymap, isNewest, candidateId, timeZone }: { skymap: Sk
                   title={`The 90 % region (equal-area, ${Math.round(zoom.kind === "zoom" ? 2 * zoom.radiusDeg : 0)}° across)`}
                 />
               ) : null}
+              {zoom && skymap.distance ? <PickedDistance skymapId={skymap.id} picked={picked} /> : null}
             </div>
             <SkymapLegend
               observedCount={outlines.length}
