@@ -12,9 +12,12 @@ export function uploadWithProgress<T>(
   url: string,
   files: ReadonlyArray<{ field: string; file: File }>,
   onProgress: (fraction: number) => void,
+  /** text fields, sent before the files */
+  fields: Readonly<Record<string, string>> = {},
 ): { done: Promise<UploadOutcome<T>>; abort: () => void } {
   const xhr = new XMLHttpRequest();
   const form = new FormData();
+  for (const [name, value] of Object.entries(fields)) form.append(name, value);
   for (const { field, file } of files) form.append(field, file, file.name);
   const done = new Promise<UploadOutcome<T>>((resolve) => {
     xhr.upload.onprogress = (e) => {

@@ -44,6 +44,16 @@ export default async function SettingsPage() {
         </Panel>
       ) : null}
       <Panel>
+        <PanelTitle>Galaxy catalogues</PanelTitle>
+        <p className="text-sm text-muted">
+          The catalogues candidates&apos; galaxy tables rank:{" "}
+          <Link href="/settings/catalogues" className="text-accent hover:underline">
+            galaxy catalogues
+          </Link>
+          .
+        </p>
+      </Panel>
+      <Panel>
         <PanelTitle>API tokens</PanelTitle>
         <ApiTokens />
       </Panel>
