@@ -4,8 +4,8 @@ import { check, type E2EContext } from "./types";
 
 /**
  * Host-galaxy candidates in the browser (issue 19): a shifter uploads a 3D sky map on a candidate's page; the
- * seeded fictional catalogue is ranked into a table that sorts and searches, and the best are circled on the
- * zoomed map.
+ * seeded fictional catalogue is ranked into a table that sorts and searches, the best are circled on the zoomed map
+ * and a click there gives the distance; a coordinator uploads a catalogue on its page.
  */
 export default async function galaxiesE2E(ctx: E2EContext): Promise<void> {
   const externalId = `GALAXY-E2E-${Date.now()}`;
@@ -60,6 +60,23 @@ export default async function galaxiesE2E(ctx: E2EContext): Promise<void> {
     await page.screenshot({ path: path.join(ctx.artifactsDir, "galaxies-candidate.png"), fullPage: true });
     check(errors.length === 0, `page errors: ${errors.join("; ")}`);
     await page.close();
+
+    // A coordinator uploads a catalogue on its page: a bad file is refused naming row and column, a good one is listed.
+    await context.clearCookies();
+    const coordinator = await context.newPage();
+    await ctx.signIn(coordinator, "cleo@chirpdesk.test", "demo-coordinator");
+    await coordinator.goto(`${ctx.baseUrl}/settings/catalogues`);
+    await coordinator.locator('[data-testid="catalogues-table"]').getByText("Demo galaxies (fictional)").waitFor({ timeout: 30_000 });
+    await coordinator.setInputFiles('[data-testid="catalogue-file-input"]', { name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from("name,raDeg,decDeg,distanceMpc\nA,1,2,3\nB,1,95,3\n") });
+    const refusal = await coordinator.locator('[data-testid="catalogue-upload-error"]').innerText({ timeout: 30_000 });
+    check(/row 2 .*column decDeg/.test(refusal), `bad catalogue refusal: "${refusal}"`);
+    const tag = Date.now().toString(36);
+    await coordinator.fill('input[placeholder="the file name when empty"]', `E2E catalogue ${tag}`);
+    await coordinator.setInputFiles('[data-testid="catalogue-file-input"]', path.resolve("tests/fixtures/galaxies/catalogue.csv"));
+    const row = coordinator.locator('[data-testid="catalogues-table"] tr', { hasText: `E2E catalogue ${tag}` });
+    await row.waitFor({ timeout: 60_000 });
+    check((await row.innerText()).includes("3,000"), `the new catalogue row: "${await row.innerText()}"`);
+    await coordinator.close();
   } catch (error) {
     for (const [index, open] of context.pages().entries()) {
       await open.screenshot({ path: path.join(ctx.artifactsDir, `galaxies-failure-${index}.png`), fullPage: true }).catch(() => undefined);
