@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { feedCandidateSchema, maxTrackSamples } from "@/lib/validations/feed";
 import { networkSiteCodes } from "./network";
+import { galaxyPaths, galaxySchemas } from "./openapi-galaxies";
 import { observationPaths, observationSchemas } from "./openapi-observations";
 import { planPaths, planSchemas } from "./openapi-plans";
 import { candidateDetailSchema, derivedSchema, errorSchema, ingestAnswerSchema } from "./openapi-schemas";
@@ -108,6 +109,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
       },
       ...planPaths(),
       ...observationPaths(),
+      ...galaxyPaths(),
       "/api/v1/openapi.json": {
         get: {
           summary: "This document",
@@ -129,6 +131,7 @@ export function buildOpenApiDocument(serverUrl?: string) {
         Error: errorSchema,
         ...planSchemas(),
         ...observationSchemas(),
+        ...galaxySchemas(),
       },
     },
   };
