@@ -144,3 +144,17 @@ export async function galaxiesById(tx: Tx, ids: readonly number[]): Promise<Map<
     .where(sql`${galaxies.id} IN (SELECT value FROM json_each(${JSON.stringify(ids)}))`);
   return new Map(rows.map((r) => [r.id, r]));
 }
+
+export async function hasGalaxyPacks(db: Database, catalogueId: string): Promise<boolean> {
+  const result = await db.$client.execute({ sql: "SELECT 1 FROM galaxy_cells WHERE catalogue_id = ? LIMIT 1", args: [catalogueId] });
+  return result.rows.length > 0;
+}
+
+/** A page of a catalogue's galaxies in id order after `afterId` (for building packs of an older import). */
+export async function galaxyPage(db: Database, catalogueId: string, afterId: number, limit: number): Promise<GalaxyRecord[]> {
+  const result = await db.$client.execute({
+    sql: "SELECT id, ra_deg, dec_deg, distance_mpc, weight FROM galaxies WHERE catalogue_id = ? AND id > ? ORDER BY id LIMIT ?",
+    args: [catalogueId, afterId, limit],
+  });
+  return result.rows.map((r) => ({ id: Number(r.id), name: "", raDeg: Number(r.ra_deg), decDeg: Number(r.dec_deg), distanceMpc: Number(r.distance_mpc), weight: Number(r.weight) }));
+}

@@ -5,6 +5,7 @@ import { findCatalogue, findDefaultCatalogue, galaxiesById, packsInCells } from 
 import { getSite } from "@/lib/data/sites";
 import { listCandidateSkymaps, readSkymapMap } from "@/lib/data/skymaps";
 import { unpack } from "@/lib/galaxies/pack";
+import { ensureGalaxyPacks } from "./pack-catalogue";
 import { rankGalaxies, regionCells, type RankedGalaxy } from "@/lib/galaxies/rank";
 import { credibleDensityThreshold } from "@/lib/skymap/region-threshold";
 import type { GalaxyRankQuery } from "@/lib/validations/catalogues";
@@ -45,6 +46,7 @@ export async function rankCandidateGalaxies(candidateId: string, query: GalaxyRa
 
   const map = readSkymapMap(skymap.file.sha256);
   if (!map.distance) throw noDistance();
+  await ensureGalaxyPacks(db, catalogue.id, catalogue.rowCount);
   const threshold = credibleDensityThreshold(map, query.level);
   const columns = unpack(await packsInCells(db, catalogue.id, regionCells(map, query.level, threshold)));
   const ranking = rankGalaxies(map, columns, { level: query.level, limit: query.limit, threshold });

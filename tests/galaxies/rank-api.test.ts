@@ -1,7 +1,9 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db";
-import { catalogues, sites } from "@/db/schema";
+import { catalogues, galaxies, galaxyCells, sites } from "@/db/schema";
+import { count, eq } from "drizzle-orm";
+import { galaxyCell } from "@/lib/galaxies/cell";
 import { astronomicalNights, targetAltitudeDeg } from "@/lib/astro";
 import { uploadSkymap } from "@/lib/data/skymaps";
 import * as cataloguesRoute from "@/app/api/v1/catalogues/route";
@@ -116,6 +118,26 @@ describe("GET /api/v1/candidates/{id}/galaxies", () => {
       expect(res.status).toBe(422);
       expect(res.json.error).toContain(q.split("=")[0]);
     }
+  });
+
+  it("a catalogue stored before the ranking packs existed gets them on its first ranking, with the same answer", async () => {
+    const db = await getDb();
+    const [old] = await db.insert(catalogues).values({ name: "imported before packs", state: "ready", rowCount: 3000 }).returning();
+    const rows = readFileSync(new URL("catalogue.csv", dir), "utf8").trim().split("\n").slice(1).map((line) => line.split(","));
+    for (let at = 0; at < rows.length; at += 500) {
+      await db.insert(galaxies).values(
+        rows.slice(at, at + 500).map(([name = "", ra, dec, dist, weight]) => ({ catalogueId: old!.id, cell: galaxyCell(Number(ra), Number(dec)), name, raDeg: Number(ra), decDeg: Number(dec), distanceMpc: Number(dist), weight: Number(weight) })),
+      );
+    }
+    const packsOf = async () => (await db.select({ n: count() }).from(galaxyCells).where(eq(galaxyCells.catalogueId, old!.id)))[0]?.n ?? 0;
+    expect(await packsOf()).toBe(0);
+    const body = (await ask(with3d, `catalogueId=${old!.id}&limit=25`)).json as unknown as Answer;
+    expect(body.consideredRows).toBe(reference["0.99"]!.considered);
+    expect(body.galaxies.map((g) => g.name)).toEqual(reference["0.99"]!.top.map((t) => t.name));
+    const packs = await packsOf();
+    expect(packs).toBeGreaterThan(0);
+    await ask(with3d, `catalogueId=${old!.id}&limit=1`);
+    expect(await packsOf()).toBe(packs);
   });
 
   it("every role reads; without credentials 401", async () => {
