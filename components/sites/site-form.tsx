@@ -17,6 +17,7 @@ function defaults(site?: SiteRecord): SiteFormInput {
     limitKind: "altitude",
     minAltitudeDeg: site ? String(site.minAltitudeDeg) : "30",
     maxAirmass: "2",
+    moonDistanceDeg: site ? String(site.moonDistanceDeg) : "20",
     fieldOfViewDeg2: site ? String(site.fieldOfViewDeg2) : "",
     timeZone: site?.timeZone ?? "UTC",
     observerIds: site?.observers.map((o) => o.id) ?? [],
@@ -38,7 +39,7 @@ export function SiteForm({
   const form = useForm<SiteFormInput, unknown, SiteInput>({ resolver: zodResolver(siteFormSchema), defaultValues: defaults(site) });
   const { errors } = form.formState;
   const limitKind = useWatch({ control: form.control, name: "limitKind" });
-  const text = (name: "code" | "name" | "latitudeDeg" | "longitudeDeg" | "elevationM" | "fieldOfViewDeg2" | "timeZone" | "minAltitudeDeg" | "maxAirmass", props: React.InputHTMLAttributes<HTMLInputElement> = {}) => (
+  const text = (name: "code" | "name" | "latitudeDeg" | "longitudeDeg" | "elevationM" | "fieldOfViewDeg2" | "timeZone" | "minAltitudeDeg" | "maxAirmass" | "moonDistanceDeg", props: React.InputHTMLAttributes<HTMLInputElement> = {}) => (
     <Input id={`site-${name}`} aria-invalid={Boolean(errors[name])} {...props} {...form.register(name)} />
   );
   return (
@@ -82,9 +83,14 @@ export function SiteForm({
           {text("fieldOfViewDeg2", { inputMode: "decimal" })}
         </Field>
       </div>
-      <Field label="Time zone" htmlFor="site-timeZone" error={errors.timeZone?.message} hint="IANA name, e.g. America/Santiago">
-        {text("timeZone")}
-      </Field>
+      <div className="grid grid-cols-3 gap-3">
+        <Field label="Time zone" htmlFor="site-timeZone" error={errors.timeZone?.message} hint="IANA name, e.g. America/Santiago" className="col-span-2">
+          {text("timeZone")}
+        </Field>
+        <Field label="Least Moon distance (°)" htmlFor="site-moonDistanceDeg" error={errors.moonDistanceDeg?.message} hint="plans keep pointings this far from the Moon; empty: 20°">
+          {text("moonDistanceDeg", { inputMode: "decimal" })}
+        </Field>
+      </div>
       <fieldset className="space-y-1">
         <legend className="text-sm font-medium">Observers who work there</legend>
         <Controller

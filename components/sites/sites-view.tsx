@@ -66,6 +66,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
         ),
       }),
       column.accessor("minAltitudeDeg", { header: "Lowest altitude", cell: (c) => `${c.getValue()}°` }),
+      column.accessor("moonDistanceDeg", { header: "Moon distance", cell: (c) => <span className="whitespace-nowrap">≥&nbsp;{c.getValue()}°</span> }),
       column.accessor("fieldOfViewDeg2", { header: "Field", cell: (c) => `${c.getValue()}\u00a0deg²` }),
       column.accessor("timeZone", { header: "Time zone", cell: (c) => <span className="text-xs">{c.getValue()}</span> }),
       column.accessor("observers", {
@@ -137,7 +138,7 @@ export function SitesView({ canManage, timeZone }: { canManage: boolean; timeZon
         open={editing !== null}
         onOpenChange={(open) => !open && setEditing(null)}
         title={editing === "new" ? "Add a site" : `Edit ${editing?.code ?? ""}`}
-        description="Position (WGS84, east longitude positive), altitude limit, field of view and the observers who work there."
+        description="Position (WGS84, east longitude positive), altitude limit, least Moon distance, field of view and the observers who work there."
       >
         {editing !== null ? (
           <SiteForm

@@ -12,6 +12,8 @@ export const sites = sqliteTable(
     longitudeDeg: real("longitude_deg").notNull(),
     elevationM: real("elevation_m").notNull(),
     minAltitudeDeg: real("min_altitude_deg").notNull().default(30),
+    /** The least angle between a pointing and the Moon the site accepts (plans schedule nothing closer); the default is lib/astro DEFAULT_MOON_DISTANCE_DEG. */
+    moonDistanceDeg: real("moon_distance_deg").notNull().default(20),
     fieldOfViewDeg2: real("field_of_view_deg2").notNull(),
     timeZone: text("time_zone").notNull().default("UTC"),
     createdAt: createdAt(),

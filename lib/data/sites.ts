@@ -1,11 +1,7 @@
 import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
 import { getDb, type Tx } from "@/db";
-import { instruments, siteObservers, sites, users, type Site } from "@/db/schema";
+import { siteObservers, sites, users, type NewSite, type Site } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import type { SessionUser } from "@/lib/auth/roles";
-import { eventKinds } from "@/lib/events/kinds";
-import type { SiteInput } from "@/lib/validations/sites";
-import { appendEvent } from "./events";
 
 export interface SiteObserver {
   id: string;
@@ -21,6 +17,7 @@ export interface SiteRecord {
   longitudeDeg: number;
   elevationM: number;
   minAltitudeDeg: number;
+  moonDistanceDeg: number;
   fieldOfViewDeg2: number;
   timeZone: string;
   createdAt: string;
@@ -36,6 +33,7 @@ function toRecord(site: Site, observers: SiteObserver[]): SiteRecord {
     longitudeDeg: site.longitudeDeg,
     elevationM: site.elevationM,
     minAltitudeDeg: site.minAltitudeDeg,
+    moonDistanceDeg: site.moonDistanceDeg,
     fieldOfViewDeg2: site.fieldOfViewDeg2,
     timeZone: site.timeZone,
     createdAt: site.createdAt.toISOString(),
@@ -72,6 +70,16 @@ export async function getSite(id: string): Promise<SiteRecord> {
   return found;
 }
 
+/**
+ * The least Moon distance (degrees) the site accepts, for the planner's schedule (lib/planning/schedule.ts
+ * ScheduleSite.moonDistanceDeg); null for an unknown site. Pass the transaction when reading inside one.
+ */
+export async function siteMoonDistanceDeg(siteId: string, tx?: Tx): Promise<number | null> {
+  const reader = tx ?? (await getDb());
+  const [row] = await reader.select({ moonDistanceDeg: sites.moonDistanceDeg }).from(sites).where(eq(sites.id, siteId)).limit(1);
+  return row?.moonDistanceDeg ?? null;
+}
+
 /** People who may be listed as a site's observers: enabled observers and coordinators. */
 export async function listObserverOptions(): Promise<SiteObserver[]> {
   const db = await getDb();
@@ -82,62 +90,43 @@ export async function listObserverOptions(): Promise<SiteObserver[]> {
     .orderBy(asc(users.name));
 }
 
-async function checkCodeFree(tx: Tx, code: string, exceptId?: string): Promise<void> {
+/** The site already using `code` (other than `exceptId`), if any. */
+export async function findSiteIdByCode(tx: Tx, code: string, exceptId?: string): Promise<string | null> {
   const where = exceptId ? and(eq(sites.code, code), ne(sites.id, exceptId)) : eq(sites.code, code);
   const [taken] = await tx.select({ id: sites.id }).from(sites).where(where).limit(1);
-  if (taken) throw new ApiError(409, `another site already uses the code ${code}`, { issues: [{ path: "code", message: "already used" }] });
+  return taken?.id ?? null;
 }
 
-async function setObservers(tx: Tx, siteId: string, observerIds: string[]): Promise<void> {
-  const wanted = [...new Set(observerIds)];
-  if (wanted.length) {
-    const known = await tx.select({ id: users.id }).from(users).where(inArray(users.id, wanted));
-    const missing = wanted.filter((id) => !known.some((k) => k.id === id));
-    if (missing.length) {
-      throw new ApiError(422, `unknown observer: ${missing.join(", ")}`, { issues: [{ path: "observerIds", message: "unknown person" }] });
-    }
-  }
+/** A site's stored row inside a transaction, for a service that compares before and after. */
+export async function findSiteRow(tx: Tx, id: string): Promise<Site | null> {
+  const [row] = await tx.select().from(sites).where(eq(sites.id, id)).limit(1);
+  return row ?? null;
+}
+
+/** The ids among `ids` that belong to a person. */
+export async function existingUserIds(tx: Tx, ids: string[]): Promise<string[]> {
+  if (ids.length === 0) return [];
+  return (await tx.select({ id: users.id }).from(users).where(inArray(users.id, ids))).map((r) => r.id);
+}
+
+export async function insertSite(tx: Tx, values: Omit<NewSite, "id">): Promise<string> {
+  const [row] = await tx.insert(sites).values(values).returning({ id: sites.id });
+  if (!row) throw new Error("site insert returned nothing");
+  return row.id;
+}
+
+export async function updateSiteRow(tx: Tx, id: string, values: Partial<Omit<NewSite, "id" | "createdAt">>): Promise<void> {
+  await tx.update(sites).set(values).where(eq(sites.id, id));
+}
+
+/** Deletes a site and answers its code, or null when there was none; tasks keep existing without a site (the foreign key sets null). */
+export async function deleteSiteRow(tx: Tx, id: string): Promise<string | null> {
+  const [removed] = await tx.delete(sites).where(eq(sites.id, id)).returning({ code: sites.code });
+  return removed?.code ?? null;
+}
+
+/** Replaces the site's observer list. */
+export async function replaceSiteObservers(tx: Tx, siteId: string, userIds: string[]): Promise<void> {
   await tx.delete(siteObservers).where(eq(siteObservers.siteId, siteId));
-  if (wanted.length) await tx.insert(siteObservers).values(wanted.map((userId) => ({ siteId, userId })));
-}
-
-export async function createSite(actor: SessionUser, input: SiteInput, now: Date = new Date()): Promise<SiteRecord> {
-  const db = await getDb();
-  const { observerIds, ...fields } = input;
-  const id = await db.transaction(async (tx) => {
-    await checkCodeFree(tx, fields.code);
-    const [row] = await tx.insert(sites).values({ ...fields, createdAt: now }).returning({ id: sites.id });
-    if (!row) throw new Error("site insert returned nothing");
-    // A new site starts with one square instrument of the field it was given; coordinators edit it on the sites page.
-    const sideDeg = Math.sqrt(fields.fieldOfViewDeg2);
-    await tx.insert(instruments).values({ siteId: row.id, name: "Main camera", footprint: { shape: "rectangle", widthDeg: sideDeg, heightDeg: sideDeg }, filters: [], exposureS: 60, overheadS: 30, limitingMag: null, createdAt: now });
-    await setObservers(tx, row.id, observerIds);
-    await appendEvent(tx, { at: now, kind: eventKinds.siteChanged, actorId: actor.id, data: { siteId: row.id, code: fields.code, action: "created" } });
-    return row.id;
-  });
-  return getSite(id);
-}
-
-export async function updateSite(actor: SessionUser, id: string, input: SiteInput, now: Date = new Date()): Promise<SiteRecord> {
-  const db = await getDb();
-  const { observerIds, ...fields } = input;
-  await db.transaction(async (tx) => {
-    const [existing] = await tx.select({ id: sites.id }).from(sites).where(eq(sites.id, id)).limit(1);
-    if (!existing) throw new ApiError(404, "site not found");
-    await checkCodeFree(tx, fields.code, id);
-    await tx.update(sites).set(fields).where(eq(sites.id, id));
-    await setObservers(tx, id, observerIds);
-    await appendEvent(tx, { at: now, kind: eventKinds.siteChanged, actorId: actor.id, data: { siteId: id, code: fields.code, action: "updated" } });
-  });
-  return getSite(id);
-}
-
-/** Deletes a site; its tasks keep existing without a site (the foreign key sets null). */
-export async function deleteSite(actor: SessionUser, id: string, now: Date = new Date()): Promise<void> {
-  const db = await getDb();
-  await db.transaction(async (tx) => {
-    const [removed] = await tx.delete(sites).where(eq(sites.id, id)).returning({ code: sites.code });
-    if (!removed) throw new ApiError(404, "site not found");
-    await appendEvent(tx, { at: now, kind: eventKinds.siteChanged, actorId: actor.id, data: { siteId: id, code: removed.code, action: "deleted" } });
-  });
+  if (userIds.length) await tx.insert(siteObservers).values(userIds.map((userId) => ({ siteId, userId })));
 }

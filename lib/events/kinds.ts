@@ -28,7 +28,7 @@ export const eventKinds = {
   counterpartReported: "counterpart.reported", // data: { counterpartId, name, raDeg, decDeg }
   skymapUploaded: "skymap.uploaded", // data: { skymapId, area90Deg2 }
   reportFilesAttached: "task.report-files-attached", // data: { reportId, uploadIds }
-  siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }
+  siteChanged: "site.changed", // data: { siteId, code, action: "created" | "updated" | "deleted" }; created: after (the fields); updated: changed, before, after
   instrumentChanged: "instrument.changed", // data: { instrumentId, siteId, name, action: "created" | "updated" | "deleted" }
   planCreated: "plan.created", // data: { planId, siteId, instrumentId, taskId, pointings, scheduled, scheduledProbability }
   pointingDone: "plan.pointing-done", // data: { planId, pointingId, index, done: boolean }

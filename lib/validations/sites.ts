@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { airmassToAltitudeDeg } from "@/lib/astro/coords";
+import { DEFAULT_MOON_DISTANCE_DEG } from "@/lib/astro/schedule";
 import { timeZoneSchema } from "./users";
 
 /** Form values arrive as strings; empty means "not given". */
@@ -23,6 +24,10 @@ export const siteFormSchema = z
     limitKind: z.enum(["altitude", "airmass"]).default("altitude"),
     minAltitudeDeg: optionalNumber,
     maxAirmass: optionalNumber,
+    moonDistanceDeg: z.preprocess(
+      (v) => (v === "" || v === null ? undefined : v),
+      z.coerce.number({ error: "give a number" }).finite("give a number").min(0, "between 0° and 180°").max(180, "between 0° and 180°").default(DEFAULT_MOON_DISTANCE_DEG),
+    ),
     fieldOfViewDeg2: z.coerce.number().finite().gt(0, "above 0").max(41_253, "at most the whole sky (41 253 deg²)"),
     timeZone: timeZoneSchema,
     observerIds: z.array(z.string().min(1)).max(200).default([]),

@@ -6,6 +6,7 @@ import { eventKinds } from "@/lib/events/kinds";
 import * as siteRoute from "@/app/api/v1/sites/[id]/route";
 import * as sitesRoute from "@/app/api/v1/sites/route";
 import * as siteInstrumentsRoute from "@/app/api/v1/sites/[id]/instruments/route";
+import { siteMoonDistanceDeg } from "@/lib/data/sites";
 import { call, createCaller, setupSkymapTest, type Caller, type SkymapTestEnv } from "./helpers";
 
 let env: SkymapTestEnv;
@@ -88,6 +89,9 @@ describe("sites: validation", () => {
     [{ limitKind: "airmass", maxAirmass: "0.5" }, "maxAirmass"],
     [{ fieldOfViewDeg2: "0" }, "fieldOfViewDeg2"],
     [{ timeZone: "Mars/Olympus" }, "timeZone"],
+    [{ moonDistanceDeg: "-1" }, "moonDistanceDeg"],
+    [{ moonDistanceDeg: "180.5" }, "moonDistanceDeg"],
+    [{ moonDistanceDeg: "far" }, "moonDistanceDeg"],
     [{ code: "no spaces!" }, "code"],
     [{ name: "" }, "name"],
   ])("refuses %j with 422 naming %s", async (override, field) => {
@@ -107,6 +111,28 @@ describe("sites: validation", () => {
     const res = await call(sitesRoute.POST, { caller: callers.coordinator, json: siteBody({ limitKind: "airmass", maxAirmass: "2", minAltitudeDeg: "" }) });
     expect(res.status).toBe(201);
     expect((res.json.site as { minAltitudeDeg: number }).minAltitudeDeg).toBeCloseTo(30, 2);
+  });
+
+  it("keeps a site's least Moon distance (20° when not given, 0° and 180° allowed), audits a change with before and after, and lets storage read it", async () => {
+    const made = await call(sitesRoute.POST, { caller: callers.coordinator, json: siteBody({ code: "MOON" }) });
+    expect(made.status).toBe(201);
+    const site = made.json.site as { id: string; moonDistanceDeg: number };
+    expect(site.moonDistanceDeg).toBe(20);
+    expect(await siteMoonDistanceDeg(site.id)).toBe(20);
+    for (const [typed, stored] of [["35.5", 35.5], ["0", 0], ["180", 180], ["", 20]] as const) {
+      const res = await call(siteRoute.PUT, { caller: callers.coordinator, method: "PUT", params: { id: site.id }, json: siteBody({ code: "MOON", moonDistanceDeg: typed }) });
+      expect(res.status).toBe(200);
+      expect((res.json.site as { moonDistanceDeg: number }).moonDistanceDeg).toBe(stored);
+    }
+    expect(await siteMoonDistanceDeg(site.id)).toBe(20);
+    expect(await siteMoonDistanceDeg("no-such-site")).toBeNull();
+    const db = await getDb();
+    const updates = (await db.select().from(events).where(eq(events.kind, eventKinds.siteChanged)))
+      .map((e) => e.data as { siteId?: string; action: string; changed?: string[]; before?: Record<string, unknown>; after?: Record<string, unknown> })
+      .filter((d) => d.siteId === site.id && d.action === "updated");
+    // Each save names what it changed: the first save changes the distance alone, 20° → 35.5°.
+    expect(updates.map((d) => d.after?.moonDistanceDeg)).toEqual([35.5, 0, 180, 20]);
+    expect(updates[0]).toMatchObject({ changed: ["moonDistanceDeg"], before: { moonDistanceDeg: 20 }, after: { moonDistanceDeg: 35.5 } });
   });
 
   it("refuses a code in use (409) and an unknown observer (422)", async () => {

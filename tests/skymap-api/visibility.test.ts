@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createSite } from "@/lib/data/sites";
+import { createSite } from "@/lib/services/manage-sites";
 import { uploadSkymap } from "@/lib/data/skymaps";
 import { candidateVisibility, compareVisibilityRows, suggestTasks, taskKindForFieldOfView, tonightOverview } from "@/lib/data/visibility";
 import { siteFormSchema } from "@/lib/validations/sites";

@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { createSite, listObserverOptions, listSites } from "@/lib/data/sites";
+import { listObserverOptions, listSites } from "@/lib/data/sites";
+import { createSite } from "@/lib/services/manage-sites";
 import { siteFormSchema } from "@/lib/validations/sites";
 
 export const GET = handler({ roles: can.read }, async () => ({ sites: await listSites(), observerOptions: await listObserverOptions() }));

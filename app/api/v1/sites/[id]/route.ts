@@ -1,6 +1,7 @@
 import { handler } from "@/lib/api/handler";
 import { can } from "@/lib/auth/roles";
-import { deleteSite, getSite, updateSite } from "@/lib/data/sites";
+import { getSite } from "@/lib/data/sites";
+import { deleteSite, updateSite } from "@/lib/services/manage-sites";
 import { siteFormSchema } from "@/lib/validations/sites";
 import { idParams } from "@/lib/validations/params";
 
