@@ -33,6 +33,7 @@ export interface PlanSiteRow {
   longitudeDeg: number;
   elevationM: number;
   minAltitudeDeg: number;
+  moonDistanceDeg: number;
   timeZone: string;
 }
 
@@ -55,6 +56,7 @@ export async function readPlanSite(tx: Tx, siteId: string): Promise<PlanSiteRow 
       longitudeDeg: sites.longitudeDeg,
       elevationM: sites.elevationM,
       minAltitudeDeg: sites.minAltitudeDeg,
+      moonDistanceDeg: sites.moonDistanceDeg,
       timeZone: sites.timeZone,
     })
     .from(sites)

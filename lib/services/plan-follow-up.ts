@@ -23,7 +23,7 @@ function fieldError(path: string, message: string): ApiError {
 }
 
 function scheduleSite(site: PlanSiteRow): ScheduleSite {
-  return { latDeg: site.latitudeDeg, lonDeg: site.longitudeDeg, elevationM: site.elevationM, minAltitudeDeg: site.minAltitudeDeg, moonDistanceDeg: DEFAULT_MOON_DISTANCE_DEG };
+  return { latDeg: site.latitudeDeg, lonDeg: site.longitudeDeg, elevationM: site.elevationM, minAltitudeDeg: site.minAltitudeDeg, moonDistanceDeg: site.moonDistanceDeg };
 }
 
 /**

@@ -10,6 +10,7 @@ export async function insertSiteWithInstrument(options: {
   longitudeDeg: number;
   timeZone?: string;
   minAltitudeDeg?: number;
+  moonDistanceDeg?: number;
   footprint: Footprint;
   filters?: string[];
   observerIds?: string[];
@@ -25,6 +26,7 @@ export async function insertSiteWithInstrument(options: {
       longitudeDeg: options.longitudeDeg,
       elevationM: 2000,
       minAltitudeDeg: options.minAltitudeDeg ?? 25,
+      ...(options.moonDistanceDeg === undefined ? {} : { moonDistanceDeg: options.moonDistanceDeg }),
       fieldOfViewDeg2: 1,
       timeZone: options.timeZone ?? "UTC",
     })
