@@ -1,0 +1,1 @@
+ALTER TABLE `sites` ADD `moon_distance_deg` real DEFAULT 20 NOT NULL;
