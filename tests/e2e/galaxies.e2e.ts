@@ -54,7 +54,7 @@ export default async function galaxiesE2E(ctx: E2EContext): Promise<void> {
     const box = await zoomed.boundingBox();
     check(box, "no zoomed map");
     await zoomed.click({ position: { x: box.width / 2, y: box.height / 2 } });
-    await page.locator('[data-testid="picked-distance"]').getByText(/[\d.,]+ ± [\d.,]+ Mpc|no distance in that pixel/).waitFor({ timeout: 30_000 });
+    await page.locator('[data-testid="picked-distance"]').getByText(/[\d.,]+\s±\s[\d.,]+\sMpc|no distance in that pixel/).waitFor({ timeout: 30_000 });
     const note = await page.locator('[data-testid="galaxy-targets"]').innerText();
     check(/take precedence/.test(note), "the caution is missing beside the galaxy table");
     await page.screenshot({ path: path.join(ctx.artifactsDir, "galaxies-candidate.png"), fullPage: true });
