@@ -242,18 +242,13 @@ export async function getSkymap(id: string): Promise<SkymapInfo> {
   return toInfo(row);
 }
 
-/** A stored map at its native resolution: the FITS file parsed once per process, then kept in the SkymapCache. */
-export function storedSkymapMap(sha256: string): SkymapMap {
-  return mapCache.get(sha256, () => loadSkymap(readFileSync(storedPath(sha256)), { maxBytes: maxSkymapBytes }).map);
-}
-
 /**
  * Probability inside a cone at the map's native resolution: the stored FITS file is re-read (once per process,
  * then kept in a SkymapCache keyed by sha256). Pixel-centre inclusion, as lib/skymap/cone.ts explains.
  */
 export async function skymapConeProbability(id: string, raDeg: number, decDeg: number, radiusDeg: number): Promise<number> {
   const info = await getSkymap(id);
-  const map = mapCache.get(info.file.sha256, () => loadSkymap(readFileSync(storedPath(info.file.sha256)), { maxBytes: maxSkymapBytes }).map);
+  const map = readSkymapMap(info.file.sha256);
   return coneProbability(map, raDeg % 360, decDeg, radiusDeg);
 }
 
@@ -263,14 +258,14 @@ export async function skymapConeProbability(id: string, raDeg: number, decDeg: n
  */
 export async function skymapDistanceAt(id: string, raDeg: number, decDeg: number): Promise<{ meanMpc: number; stdMpc: number } | null> {
   const info = await getSkymap(id);
-  const map = mapCache.get(info.file.sha256, () => loadSkymap(readFileSync(storedPath(info.file.sha256)), { maxBytes: maxSkymapBytes }).map);
+  const map = readSkymapMap(info.file.sha256);
   if (!map.distance) throw new ApiError(409, "this sky map has no distance columns (DISTMU, DISTSIGMA, DISTNORM)");
   const index = pixelLocator(map)(raDeg, decDeg);
   const moments = index < 0 ? null : pixelDistance(map.distance, index);
   return moments ? { meanMpc: moments.meanMpc, stdMpc: moments.stdMpc } : null;
 }
 
-/** The parsed map of a stored sky map at native resolution (coverage, searched regions), cached per process. */
+/** The parsed map of a stored sky map at native resolution (plans, coverage, cones, searched regions): the FITS file is read once per process, then kept in the SkymapCache keyed by sha256. */
 export function readSkymapMap(sha256: string): SkymapMap {
   return mapCache.get(sha256, () => loadSkymap(readFileSync(storedPath(sha256)), { maxBytes: maxSkymapBytes }).map);
 }
@@ -278,7 +273,7 @@ export function readSkymapMap(sha256: string): SkymapMap {
 /** The stored display grid's bytes (HPXG); rebuilt from the FITS file if the derived file went missing. */
 export async function readDisplayGridBytes(sha256: string): Promise<Uint8Array> {
   if (await storedExists(sha256, DISPLAY_GRID_SUFFIX)) return new Uint8Array(await readStored(sha256, DISPLAY_GRID_SUFFIX));
-  const map = mapCache.get(sha256, () => loadSkymap(new Uint8Array(readFileSync(storedPath(sha256))), { maxBytes: maxSkymapBytes }).map);
+  const map = readSkymapMap(sha256);
   const bytes = encodeDisplayGrid(toDisplayGrid(map, DISPLAY_NSIDE));
   await storeDerived(sha256, DISPLAY_GRID_SUFFIX, bytes);
   return bytes;

@@ -8,7 +8,7 @@ import { appendEvent } from "@/lib/data/events";
 import { findInstrument } from "@/lib/data/instruments";
 import { readTask } from "@/lib/data/tasks";
 import { closePlansOfTasks, insertPlan, observedFootprints, observesAtSite, openPlanTiles, readPlan, readPlanSite, type PlanSiteRow } from "@/lib/data/plans";
-import { listCandidateSkymaps, storedSkymapMap } from "@/lib/data/skymaps";
+import { listCandidateSkymaps, readSkymapMap } from "@/lib/data/skymaps";
 import { readCandidateRow } from "@/lib/data/triggers";
 import { eventKinds } from "@/lib/events/kinds";
 import { greedyPlan, unionProbability } from "@/lib/planning/greedy";
@@ -74,7 +74,7 @@ export async function planFollowUp(actor: SessionUser, candidateId: string, inpu
     ...(input.avoid === "none" ? [] : await observedFootprints(db, candidateId)),
   ];
 
-  const map = storedSkymapMap(skymap.file.sha256);
+  const map = readSkymapMap(skymap.file.sha256);
   const exposureS = input.exposureS ?? instrument.exposureS;
   const greedy = greedyPlan(map, instrument.footprint, { level: input.level, maxPointings: input.maxPointings, avoid });
   const times = schedulePointings(greedy.pointings, { site, window, exposureS, overheadS: instrument.overheadS });
